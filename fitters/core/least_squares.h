@@ -1,0 +1,195 @@
+#pragma once
+// Weighted nonlinear least squares over Ceres, with honest uncertainty.
+//
+// What is estimated. Parameters θ (physical units) minimise
+//     S(θ) = Σ_g Σ_k ( r_gk(θ) / σ_g )²
+// where r_gk are the residuals of group g (one bench test's channel, or one
+// NIST data set) and σ_g is that group's noise level. Ceres sees scaled
+// parameters x_j = θ_j / s_j (s_j the parameter's typical magnitude), so every
+// value it moves is O(1); bounds are applied in the same scaled space.
+//
+// Covariance. At the solution, with J the Jacobian of the weighted residuals
+// with respect to x, C = (JᵀJ)⁻¹ (Ceres Covariance, dense SVD). Each group's
+// residual variance is  s_g² = RSS_g / (n_g − h_g), where h_g = trace(C·J_gᵀJ_g)
+// is the group's share of the p fitted degrees of freedom (Σ_g h_g = p; with one
+// group this is the classical s² = RSS/(n − p)). The parameter covariance is
+//     Cov(θ) = S · Σ_g s_g² · C·J_gᵀJ_g·C · S,     S = diag(s_j)
+// which reduces to s²·(JᵀJ)⁻¹ for one group. With `estimate_group_sigmas`
+// the σ_g are re-estimated from the residuals and the problem solved again, so
+// that each group counts by its own noise.
+//
+// Intervals. Wald: θ_j ± t_{(1+c)/2, ν_j} · se_j, with Student-t quantiles
+// (Boost.Math). ν_j is n − p for one group; with several groups it is the
+// Welch–Satterthwaite combination  ν_j = (Σ_g v_gj)² / Σ_g (v_gj² / (n_g − h_g)),
+// v_gj = s_g²·[C·J_gᵀJ_g·C]_jj, so a parameter informed by a few plateau means
+// gets the few degrees of freedom they have.
+//
+// When it breaks. If JᵀJ is rank deficient (a direction of θ that no residual
+// sees), no covariance is reported: the result names the parameters of each
+// null direction as not identifiable. Residuals that are not independent
+// (autocorrelated time series) make these intervals too narrow; the group
+// statistics report the lag-1 autocorrelation so a caller can tell.
+
+#include <ceres/ceres.h>
+
+#include <Eigen/Dense>
+#include <array>
+#include <memory>
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace coilspin::core {
+
+struct ParameterSpec {
+  std::string name;                  // e.g. "resistance"
+  double initial = 0.0;              // starting value, physical units
+  double scale = 0.0;                // typical magnitude s_j; 0 means |initial| (1 if initial is 0)
+  std::optional<double> lower;       // physical bounds
+  std::optional<double> upper;
+  bool fixed = false;                // held at `initial`, not estimated
+};
+
+struct GroupSpec {
+  std::string name;                  // e.g. "locked-rotor step current"
+  double sigma = 1.0;                // noise σ_g of this group's residuals, in their unit
+};
+
+struct SolveOptions {
+  double confidence = 0.95;          // two-sided interval level c
+  int max_iterations = 500;
+  double function_tolerance = 1e-15;
+  double gradient_tolerance = 1e-15;
+  double parameter_tolerance = 1e-15;
+  bool estimate_group_sigmas = false;  // re-estimate σ_g from the residuals and solve again
+  int group_sigma_rounds = 3;
+  // True: the noise scale is estimated from the residuals (s_g², Student-t).
+  // False: σ_g are known exactly (s_g² = 1, normal quantiles).
+  bool residual_variance_from_data = true;
+  // A singular value of J below this fraction of the largest marks a null direction.
+  double rank_tolerance = 1e-10;
+
+  bool IsValid(std::string* error) const;
+};
+
+struct ParameterEstimate {
+  std::string name;
+  double value = 0.0;
+  double std_error = 0.0;
+  double ci_low = 0.0;
+  double ci_high = 0.0;
+  double degrees_of_freedom = 0.0;
+  bool fixed = false;
+};
+
+struct GroupStatistics {
+  std::string name;
+  int num_residuals = 0;
+  double sigma = 0.0;                // σ_g used in the final solve
+  double residual_variance = 0.0;    // s_g² of the weighted residuals (≈ 1 when σ_g is right)
+  double rms = 0.0;                  // RMS of the unweighted residuals, in their unit
+  double lag1_autocorrelation = 0.0; // of the residual sequence, in order of addition
+  double degrees_of_freedom = 0.0;   // n_g − h_g
+  std::vector<double> information_share;  // per parameter: v_gj / Σ_g v_gj
+};
+
+struct FitResult {
+  bool usable = false;               // converged and covariance available
+  bool converged = false;
+  std::string termination;           // Ceres termination type
+  std::string message;               // Ceres message, or why not usable
+  int iterations = 0;
+  double initial_cost = 0.0;         // ½·S at start and at the end (Ceres convention)
+  double final_cost = 0.0;
+  int num_residuals = 0;
+  int num_estimated = 0;             // p
+  double confidence = 0.95;
+  std::vector<ParameterEstimate> parameters;  // same order as added
+  Eigen::MatrixXd covariance;        // physical units, estimated parameters and fixed ones (zero rows)
+  Eigen::MatrixXd correlation;
+  std::vector<GroupStatistics> groups;
+  // Each null direction of JᵀJ, as the names of the parameters it involves.
+  std::vector<std::vector<std::string>> not_identifiable;
+
+  const ParameterEstimate& Get(const std::string& name) const;  // asserts the name exists
+  int IndexOf(const std::string& name) const;                     // -1 when absent
+};
+
+class LeastSquaresProblem {
+ public:
+  LeastSquaresProblem();
+  ~LeastSquaresProblem();
+  LeastSquaresProblem(const LeastSquaresProblem&) = delete;
+  LeastSquaresProblem& operator=(const LeastSquaresProblem&) = delete;
+
+  int AddParameter(const ParameterSpec& spec);  // returns the parameter index
+  int AddGroup(const GroupSpec& spec);          // returns the group index
+
+  // Adds `num_residuals` residuals of group `group`, computed by `model` from the
+  // parameters listed (by index). Model is a functor templated for Ceres
+  // automatic differentiation:
+  //     template <typename T> bool operator()(T const* const* p, T* r) const;
+  // where *p[k] is the k-th listed parameter in physical units and r receives
+  // the unweighted residuals (measured − model). The core applies scaling and
+  // the group weight 1/σ_g around it.
+  template <class Model>
+  void AddResiduals(int group, const std::vector<int>& parameters, int num_residuals, Model model);
+
+  FitResult Solve(const SolveOptions& options);
+
+  // Current values (physical) of all parameters, e.g. after Solve.
+  std::vector<double> Values() const;
+
+ private:
+  struct Parameter;
+  struct Group;
+  static constexpr int kMaxParametersPerBlock = 16;
+
+  template <class Model>
+  struct Scaled {
+    Model model;
+    std::vector<double> scales;
+    const double* sigma;  // owned by the problem's group, may change between solves
+    int num_residuals;
+    template <typename T>
+    bool operator()(T const* const* x, T* r) const {
+      std::array<T, kMaxParametersPerBlock> physical;
+      std::array<const T*, kMaxParametersPerBlock> pointers;
+      for (std::size_t k = 0; k < scales.size(); ++k) {
+        physical[k] = x[k][0] * scales[k];  // θ = s·x
+        pointers[k] = &physical[k];
+      }
+      if (!model(pointers.data(), r)) return false;
+      for (int i = 0; i < num_residuals; ++i) r[i] /= *sigma;
+      return true;
+    }
+  };
+
+  double* ScaledValue(int parameter);
+  double ScaleOf(int parameter) const;
+  const double* SigmaOf(int group) const;
+  void RegisterBlock(int group, ceres::CostFunction* cost, const std::vector<int>& parameters,
+                     int num_residuals);
+
+  std::unique_ptr<ceres::Problem> problem_;
+  std::vector<std::unique_ptr<Parameter>> parameters_;
+  std::vector<std::unique_ptr<Group>> groups_;
+};
+
+template <class Model>
+void LeastSquaresProblem::AddResiduals(int group, const std::vector<int>& parameters,
+                                       int num_residuals, Model model) {
+  constexpr int kStride = 4;
+  std::vector<double> scales;
+  for (int index : parameters) scales.push_back(ScaleOf(index));
+  auto* functor = new Scaled<Model>{std::move(model), scales, SigmaOf(group), num_residuals};
+  auto* cost = new ceres::DynamicAutoDiffCostFunction<Scaled<Model>, kStride>(functor);
+  for (std::size_t k = 0; k < parameters.size(); ++k) cost->AddParameterBlock(1);
+  cost->SetNumResiduals(num_residuals);
+  RegisterBlock(group, cost, parameters, num_residuals);
+}
+
+// Student-t quantile t_{q, ν} (Boost.Math); ν = ∞ gives the normal quantile.
+double StudentTQuantile(double probability, double degrees_of_freedom);
+
+}  // namespace coilspin::core

@@ -1,0 +1,49 @@
+#pragma once
+// Segmentation of a log into the parts the fitters use.
+//
+// Plateaus: a staircase signal (the supply voltage stepped through levels) is
+// cut where it leaves its running level by more than a noise-scaled threshold;
+// the first part of each level (the transient) is dropped and what remains is a
+// settled plateau, summarised by the mean and spread of each channel.
+// Step onset: the first sample where a signal has left its initial level.
+
+#include <cstddef>
+#include <optional>
+#include <vector>
+
+namespace coilspin {
+
+struct PlateauOptions {
+  std::size_t min_samples = 8;       // a settled part shorter than this is not a plateau
+  double settle_fraction = 0.25;     // fraction of each level dropped as transient
+  double threshold_sigmas = 8.0;     // a level ends when the signal leaves it by this many noise σ
+  double min_relative_step = 0.02;   // ... and by at least this fraction of the signal's range
+};
+
+struct ChannelSummary {
+  double mean = 0.0;
+  double std_dev = 0.0;  // sample standard deviation over the plateau
+};
+
+struct Plateau {
+  std::size_t begin = 0;  // first settled sample
+  std::size_t end = 0;    // one past the last settled sample
+  std::vector<ChannelSummary> channels;  // one per channel passed in, same order
+  std::size_t size() const { return end - begin; }
+};
+
+// Settled plateaus of `level` (e.g. voltage); `channels` (e.g. voltage and
+// current) are summarised over each plateau.
+std::vector<Plateau> FindPlateaus(const std::vector<double>& level,
+                                  const std::vector<const std::vector<double>*>& channels,
+                                  const PlateauOptions& options = {});
+
+// Noise σ of a signal from its first differences: MAD(Δx)/(0.6745·√2), robust to steps.
+double NoiseFromDifferences(const std::vector<double>& signal);
+
+// Index of the first sample of a step: the first k where |x[k] − x_initial| exceeds
+// half the step amplitude, moved back to the last sample still at the initial level.
+// Empty when the signal has no step larger than its noise.
+std::optional<std::size_t> FindStepOnset(const std::vector<double>& signal);
+
+}  // namespace coilspin
