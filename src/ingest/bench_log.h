@@ -32,10 +32,13 @@ struct BenchLog {
   std::vector<ColumnSource> columns;                         // what was read, in header order
   std::vector<std::pair<std::string, std::string>> notes;    // "# key: value" comments
   std::vector<long> line_of_row;                             // 1-based file line of each row
+  std::vector<std::string> header_cells;                     // every header cell as written, read or not
+  long header_line = 0;                                      // 1-based file line of the header row
 
   std::size_t size() const { return time_s.size(); }
   bool Has(units::Quantity quantity) const;
   const std::vector<double>& Channel(units::Quantity quantity) const;
+  std::vector<double>& Channel(units::Quantity quantity);
 };
 
 }  // namespace coilspin

@@ -6,6 +6,7 @@
 
 #include <stdexcept>
 #include <string>
+#include <string_view>
 
 namespace coilspin {
 
@@ -26,6 +27,7 @@ enum class InputErrorKind {
   kCountsWithoutCpr,
   kBadOption,
   kBadSession,
+  kDuplicateColumn,  // two header cells name the same quantity
 };
 
 std::string_view InputErrorKindName(InputErrorKind kind);

@@ -5,7 +5,12 @@
 // cut where it leaves its running level by more than a noise-scaled threshold;
 // the first part of each level (the transient) is dropped and what remains is a
 // settled plateau, summarised by the mean and spread of each channel.
-// Step onset: the first sample where a signal has left its initial level.
+// Details (segmentation.cc): a level ends only when two consecutive samples
+// leave it, so a lone spike stays inside the level; samples at a level's end
+// more than 4 σ from its mean (a supply slewing to the next level) are trimmed.
+// Step onset: the first sample where a signal has left its initial level; the
+// initial level is the median of the first 1/20 of the samples, and a step must
+// exceed 8 noise σ.
 
 #include <cstddef>
 #include <optional>

@@ -1,0 +1,165 @@
+#include "src/ingest/segmentation.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <stdexcept>
+#include <utility>
+
+namespace coilspin {
+namespace {
+
+// Φ⁻¹(0.75) = 0.6744897501960817: the median absolute deviation of a standard
+// normal variable, so σ = MAD / 0.6745 (normal distribution quantile;
+// statistics handbook).
+constexpr double kNormalMadPerSigma = 0.6744897501960817;
+// The difference of two independent samples of noise σ has standard deviation
+// √2·σ (statistics, variance of a difference).
+const double kDifferenceSigmaPerSigma = std::sqrt(2.0);
+
+// A running mean of equal values can differ from them by rounding; departures
+// below this many ulps of the signal's magnitude are not departures (common practice).
+constexpr double kRoundingUlps = 1024.0;
+
+// A level's last samples may already be on their way to the next level (a
+// supply that slews); they are trimmed from its end while they lie more than
+// 4 σ from the level's mean (a 6·10⁻⁵ chance for a Gaussian sample of the level).
+constexpr double kLevelEdgeSigmas = 4.0;
+
+// Step onset: the initial level is the median of the first 1/20 of the record,
+// but of no more than its first 8 samples, so that a short pre-trigger part
+// (common practice: oscilloscopes keep a few percent) still sets it; a step
+// must exceed 8 noise σ, the PlateauOptions default, to count; a sample within
+// 4 σ of the initial level (a 6·10⁻⁵ chance to fall outside for Gaussian noise)
+// is still at that level.
+constexpr std::size_t kInitialLevelDivisor = 20;
+constexpr std::size_t kInitialLevelMaxSamples = 8;
+constexpr double kStepMinimumSigmas = 8.0;
+constexpr double kInitialLevelSigmas = 4.0;
+
+// Median of the values (reordered in place); the mean of the two middle ones for an even count.
+double Median(std::vector<double>& values) {
+  const std::size_t middle = values.size() / 2;
+  std::nth_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle), values.end());
+  const double upper = values[middle];
+  if (values.size() % 2 == 1) return upper;
+  const double lower =
+      *std::max_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle));
+  return 0.5 * (lower + upper);
+}
+
+ChannelSummary Summarise(const std::vector<double>& channel, std::size_t begin, std::size_t end) {
+  const auto count = static_cast<double>(end - begin);
+  double sum = 0.0;
+  for (std::size_t i = begin; i < end; ++i) sum += channel[i];
+  ChannelSummary summary;
+  summary.mean = sum / count;
+  if (end - begin < 2) return summary;
+  double squares = 0.0;
+  for (std::size_t i = begin; i < end; ++i)
+    squares += (channel[i] - summary.mean) * (channel[i] - summary.mean);
+  summary.std_dev = std::sqrt(squares / (count - 1.0));
+  return summary;
+}
+
+// [begin, end) of each level: a level ends at the first sample that departs from
+// the level's running mean by more than `threshold` when the next sample departs
+// too; its end is then moved back past samples farther than `edge_band` from
+// that mean. A lone departing sample (a spike) stays in the level but not in its mean.
+std::vector<std::pair<std::size_t, std::size_t>> SplitLevels(const std::vector<double>& level,
+                                                             double threshold, double edge_band) {
+  std::vector<std::pair<std::size_t, std::size_t>> levels;
+  std::size_t start = 0;
+  double sum = level[0];
+  std::size_t count = 1;
+  for (std::size_t i = 1; i < level.size(); ++i) {
+    const double mean = sum / static_cast<double>(count);
+    const bool departs = std::abs(level[i] - mean) > threshold;
+    if (!departs) {
+      sum += level[i];
+      ++count;
+      continue;
+    }
+    const bool next_departs = i + 1 == level.size() || std::abs(level[i + 1] - mean) > threshold;
+    if (!next_departs) continue;
+    std::size_t end = i;
+    while (end > start + 1 && std::abs(level[end - 1] - mean) > edge_band) --end;
+    levels.emplace_back(start, end);
+    start = i;
+    sum = level[i];
+    count = 1;
+  }
+  levels.emplace_back(start, level.size());
+  return levels;
+}
+
+}  // namespace
+
+double NoiseFromDifferences(const std::vector<double>& signal) {
+  if (signal.size() < 2) return 0.0;
+  std::vector<double> differences(signal.size() - 1);
+  for (std::size_t i = 0; i + 1 < signal.size(); ++i) differences[i] = signal[i + 1] - signal[i];
+  const double center = Median(differences);
+  for (double& difference : differences) difference = std::abs(difference - center);
+  const double median_absolute_deviation = Median(differences);
+  return median_absolute_deviation / (kNormalMadPerSigma * kDifferenceSigmaPerSigma);
+}
+
+std::vector<Plateau> FindPlateaus(const std::vector<double>& level,
+                                  const std::vector<const std::vector<double>*>& channels,
+                                  const PlateauOptions& options) {
+  for (const std::vector<double>* channel : channels) {
+    if (channel == nullptr || channel->size() != level.size()) {
+      throw std::invalid_argument("FindPlateaus: every channel must have as many samples as the level");
+    }
+  }
+  if (level.empty()) return {};
+  const auto [lowest, highest] = std::minmax_element(level.begin(), level.end());
+  const double range = *highest - *lowest;
+  const double magnitude = std::max(std::abs(*lowest), std::abs(*highest));
+  const double sigma = NoiseFromDifferences(level);
+  const double rounding = kRoundingUlps * std::numeric_limits<double>::epsilon() * magnitude;
+  const double threshold =
+      std::max({options.threshold_sigmas * sigma, options.min_relative_step * range, rounding});
+  const double edge_band = std::max(kLevelEdgeSigmas * sigma, rounding);
+
+  std::vector<Plateau> plateaus;
+  for (const auto& [begin, end] : SplitLevels(level, threshold, edge_band)) {
+    const auto dropped =
+        static_cast<std::size_t>(std::ceil(options.settle_fraction * static_cast<double>(end - begin)));
+    const std::size_t settled_begin = std::min(end, begin + dropped);
+    if (end - settled_begin < std::max<std::size_t>(options.min_samples, 1)) continue;
+    Plateau plateau;
+    plateau.begin = settled_begin;
+    plateau.end = end;
+    for (const std::vector<double>* channel : channels) {
+      plateau.channels.push_back(Summarise(*channel, settled_begin, end));
+    }
+    plateaus.push_back(std::move(plateau));
+  }
+  return plateaus;
+}
+
+std::optional<std::size_t> FindStepOnset(const std::vector<double>& signal) {
+  const std::size_t n = signal.size();
+  if (n < 3) return std::nullopt;
+  std::vector<double> initial(
+      signal.begin(),
+      signal.begin() + static_cast<std::ptrdiff_t>(std::clamp<std::size_t>(n / kInitialLevelDivisor, 1, kInitialLevelMaxSamples)));
+  const double initial_level = Median(initial);
+  const auto excursion = [&](std::size_t k) { return std::abs(signal[k] - initial_level); };
+
+  double amplitude = 0.0;  // the largest excursion held for two samples, so a lone spike is no step
+  for (std::size_t k = 0; k + 1 < n; ++k)
+    amplitude = std::max(amplitude, std::min(excursion(k), excursion(k + 1)));
+  const double sigma = NoiseFromDifferences(signal);
+  if (amplitude == 0.0 || amplitude <= kStepMinimumSigmas * sigma) return std::nullopt;
+
+  std::size_t k = 0;
+  while (!(excursion(k) > 0.5 * amplitude && excursion(k + 1) > 0.5 * amplitude)) ++k;
+  const double band = kInitialLevelSigmas * sigma;
+  while (k > 0 && excursion(k) > band) --k;
+  return k;
+}
+
+}  // namespace coilspin

@@ -1,0 +1,40 @@
+#pragma once
+// Named physical and mathematical constants of coilspin, each with its source.
+// Code elsewhere uses these names, never the bare numbers.
+
+namespace coilspin::units {
+
+// ---- Mathematics -----------------------------------------------------------
+
+inline constexpr double kPi = 3.14159265358979323846;
+inline constexpr double kRadiansPerRevolution = 2.0 * kPi;  // physics (definition of the radian)
+inline constexpr double kDegreesPerRevolution = 360.0;      // physics (definition of the degree)
+
+// ---- Time and temperature --------------------------------------------------
+
+inline constexpr double kSecondsPerMinute = 60.0;  // physics (definition)
+// 0 degC = 273.15 K exactly: t/degC = T/K − 273.15 (NIST SP 811, 4.2.1.1, degree Celsius).
+inline constexpr double kCelsiusZero_K = 273.15;
+
+// ---- SI prefixes (NIST SP 811, section 4.3) --------------------------------
+
+inline constexpr double kMilli = 1e-3;
+inline constexpr double kMicro = 1e-6;
+inline constexpr double kCenti = 1e-2;
+
+// ---- Units of force and torque ---------------------------------------------
+
+// Standard acceleration of gravity g_n = 9.80665 m/s² (exact, by definition of the
+// 3rd CGPM 1901); 1 kgf = 9.80665 N exactly (NIST SP 811, Appendix B).
+inline constexpr double kStandardGravity_m_s2 = 9.80665;
+// 1 ozf·in = 7.061552 × 10⁻³ N·m (NIST SP 811, Appendix B, ounce (avoirdupois)-force inch).
+inline constexpr double kOunceForceInch_N_m = 7.061552e-3;
+
+// ---- Materials ---------------------------------------------------------------
+
+// Resistance–temperature constant of copper windings, R(θ) = R_ref·(k + θ)/(k + θ_ref):
+// IEC 60028 annealed copper α20 = 0.00393/K → 1/α − 20 = 234.5 °C;
+// IEEE Std 113 uses 234.5, IEC 60034-1 uses 235.
+inline constexpr double kCopperTemperatureConstant_degC = 234.5;
+
+}  // namespace coilspin::units
