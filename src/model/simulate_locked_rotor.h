@@ -4,6 +4,34 @@
 // solved exactly between samples (V_s is piecewise constant, changing only at
 // sample instants), then noise and ADC quantisation are added to the logged
 // channels. R follows the winding temperature (copper, docs/methods.md §7).
+//
+// Timing. Samples are logged at t_k = k·Δ (Δ = sample_period_s). The supply
+// level that applies over [t_k, t_k+1) is set at t_k, so sample k already logs
+// v_k = V_s,k − R_s·i_k with the new level and the (continuous) current i_k.
+// The current is advanced exactly over kSubStepsPerSample sub-intervals of each
+// sample period (V_s and R are constant over a period, so the sub-steps agree
+// with one exact step to rounding) and the instantaneous v and i are logged at
+// the sample instants. With R_s > 0 the terminal voltage sags as i changes
+// within a period, so a zero-order-hold fit on the logged v does not match this
+// bench by construction: to first order in Δ its L comes out high by
+// Δ·R_s/(2L) (relative), its R unbiased.
+//
+// Brush drop: the diode-like rule of src/model/locked_rotor_circuit.h (with
+// |V_s| ≤ Vb no current is driven; a current that is flowing decays to zero).
+//
+// Plateaus start from rest (i = 0 at t = 0, the supply switched on to the first
+// level); plateau j is held at winding temperature θ_0 + j·heating_per_plateau_K.
+// The step starts from the current settled at supply_before_V, at θ_0.
+//
+// Noise. White Gaussian noise of the given σ, then rounding to the ADC step,
+// on the logged v and i (src/model/measurement_noise.h); the voltage and current
+// channels draw from separate streams of BenchConditions::seed. The temperature
+// channel is logged exactly.
+//
+// Throws std::invalid_argument for a plan or parameter set that cannot be
+// simulated (Δ ≤ 0, a hold or span shorter than one sample, no levels,
+// R + R_s ≤ 0, L < 0, Vb < 0, negative σ or lsb, a temperature at or below
+// the copper line's zero).
 
 #include <vector>
 
@@ -12,6 +40,9 @@
 #include "src/model/sampled_log.h"
 
 namespace coilspin::model {
+
+// Exact sub-intervals per sample period (see Timing above).
+inline constexpr int kSubStepsPerSample = 8;
 
 // Supply stepped through levels, each held long enough to settle.
 struct PlateauPlan {
