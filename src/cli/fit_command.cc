@@ -1,0 +1,146 @@
+#include "src/cli/fit_command.h"
+
+#include <algorithm>
+#include <cstdio>
+#include <ostream>
+
+#include "fitters/joint/motor_fit.h"
+#include "src/cli/exit_codes.h"
+#include "src/cli/key_value.h"
+#include "src/cli/session_file.h"
+#include "src/ingest/input_error.h"
+#include "src/ingest/read_bench_log.h"
+#include "src/output/atomic_file.h"
+#include "src/output/parameter_table.h"
+#include "src/output/result_json.h"
+
+namespace coilspin::cli {
+namespace {
+
+struct PlannedTest {
+  TestKind kind;
+  std::string path;
+  ReadOptions read;
+  std::string shown_path;  // how the result names the log: as the user wrote it
+};
+
+std::string Text(double value) {
+  char buffer[32];
+  std::snprintf(buffer, sizeof buffer, "%g", value);
+  return buffer;
+}
+
+template <typename T>
+std::optional<T> FirstOf(const std::optional<T>& flag, const std::optional<T>& session) {
+  return flag ? flag : session;
+}
+
+}  // namespace
+
+void DeclareFitOptions(CLI::App* c, FitArguments* a) {
+  c->add_option("session", a->session_path, "Session file (TOML) naming the motor, bench settings and test logs")
+      ->check(CLI::ExistingFile);
+  c->add_option("--locked-rotor", a->locked_rotor_files, "Locked-rotor log (plateaus or a step capture); repeatable");
+  c->add_option("--no-load", a->no_load_files, "No-load log; repeatable (not yet supported)");
+  c->add_option("--spin-down", a->spin_down_files, "Spin-down log; repeatable (not yet supported)");
+  c->add_option("--step", a->step_files, "Free-shaft voltage step log; repeatable (not yet supported)");
+  c->add_option("--cpr", a->counts_per_rev, "Encoder counts per revolution, for position [counts]")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--gear-ratio", a->gear_ratio, "Motor turns per output turn when speed is read at a gearbox output")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--winding-temperature", a->winding_temperature_degC,
+                "Winding temperature during the locked-rotor test [degC], when not logged");
+  c->add_option("--reference-temperature", a->reference_temperature_degC,
+                "Temperature [degC] to which resistance is corrected");
+  c->add_option("--known-inertia", a->known_inertia_kg_m2, "Inertia of the rotating assembly [kg*m^2], when known")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--confidence", a->confidence, "Two-sided interval level, e.g. 0.95")
+      ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
+  c->add_option("--column", a->column_specs,
+                "Header of a column that does not follow 'quantity [unit]', e.g. --column speed=\"Tach (RPM)\"");
+  c->add_option("--unit", a->unit_specs, "Unit of a quantity whose header names none, e.g. --unit current=mA");
+  c->add_option("--require", a->required,
+                "Parameter that must be determined (else exit status 1), e.g. --require inductance");
+  c->add_option("--json", a->json_path, "Write the result file (coilspin.result/1) here, atomically");
+  c->add_flag("--quiet", a->quiet, "Print no table");
+}
+
+int RunFit(const FitArguments& a, std::ostream& out) {
+  std::optional<Session> session;
+  if (!a.session_path.empty()) session = LoadSession(a.session_path);
+
+  ReadOptions flag_read;
+  flag_read.column_for = ParseQuantityMap(a.column_specs, "--column");
+  flag_read.unit_for = ParseQuantityMap(a.unit_specs, "--unit");
+  flag_read.counts_per_rev = FirstOf(a.counts_per_rev, session ? session->counts_per_rev : std::nullopt);
+  flag_read.gear_ratio = FirstOf(a.gear_ratio, session ? session->gear_ratio : std::nullopt).value_or(1.0);
+
+  std::vector<PlannedTest> planned;
+  if (session) {
+    for (const auto& t : session->tests) {
+      ReadOptions read = flag_read;
+      for (const auto& [q, name] : t.column_for) read.column_for[q] = name;
+      for (const auto& [q, unit] : t.unit_for) read.unit_for[q] = unit;
+      planned.push_back({t.kind, t.path, read, t.written_path});
+    }
+  }
+  const std::pair<TestKind, const std::vector<std::string>*> flagged[] = {
+      {TestKind::kLockedRotor, &a.locked_rotor_files},
+      {TestKind::kNoLoad, &a.no_load_files},
+      {TestKind::kSpinDown, &a.spin_down_files},
+      {TestKind::kStep, &a.step_files}};
+  for (const auto& [kind, files] : flagged)
+    for (const auto& f : *files) planned.push_back({kind, f, flag_read, f});
+  if (planned.empty())
+    throw InputError(InputErrorKind::kBadOption, "", 0, 0,
+                     "no test logs given: name a session file or use --locked-rotor FILE");
+  for (const auto& p : planned)
+    if (!joint::IsSupported(p.kind))
+      throw InputError(InputErrorKind::kBadOption, p.path, 0, 0,
+                       std::string(TestKindToString(p.kind)) +
+                           " tests are not yet supported by this version of coilspin (locked-rotor only)");
+
+  joint::MotorFitOptions options;
+  options.motor_label = session ? session->motor_label : "";
+  options.confidence = FirstOf(a.confidence, session ? session->confidence : std::nullopt).value_or(0.95);
+  options.locked_rotor.winding_temperature_degC =
+      FirstOf(a.winding_temperature_degC, session ? session->winding_temperature_degC : std::nullopt);
+  options.locked_rotor.reference_temperature_degC =
+      FirstOf(a.reference_temperature_degC, session ? session->reference_temperature_degC : std::nullopt);
+  std::string error;
+  if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
+
+  std::vector<joint::TestLog> logs;
+  for (const auto& p : planned) {
+    BenchLog log = ReadBenchLog(p.path, p.read);
+    RequireForTest(log, p.kind);
+    log.path = p.shown_path;
+    logs.push_back({p.kind, std::move(log)});
+  }
+
+  MotorEstimate estimate = joint::FitMotor(logs, options);
+  estimate.settings.push_back({"confidence", Text(options.confidence)});
+  estimate.settings.push_back({"intervals", "wald-student-t"});
+  if (options.locked_rotor.winding_temperature_degC)
+    estimate.settings.push_back({"winding_temperature_degC", Text(*options.locked_rotor.winding_temperature_degC)});
+  if (options.locked_rotor.reference_temperature_degC)
+    estimate.settings.push_back({"reference_temperature_degC", Text(*options.locked_rotor.reference_temperature_degC)});
+  if (flag_read.counts_per_rev) estimate.settings.push_back({"encoder_cpr", Text(*flag_read.counts_per_rev)});
+  estimate.settings.push_back({"gear_ratio", Text(flag_read.gear_ratio)});
+  if (auto j = FirstOf(a.known_inertia_kg_m2, session ? session->known_inertia_kg_m2 : std::nullopt))
+    estimate.settings.push_back({"known_inertia_kg_m2", Text(*j)});
+
+  std::vector<std::string> required = a.required;
+  required.push_back("resistance");  // what a locked-rotor test is for
+  std::vector<std::string> undetermined;
+  for (const auto& key : required)
+    for (const auto& [missing, reason] : estimate.not_identified)
+      if (missing == key && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
+        undetermined.push_back(key);
+
+  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::ResultJson(estimate));
+  if (!a.quiet) out << output::ParameterTable(estimate);
+  return undetermined.empty() ? kSuccess : kUndetermined;
+}
+
+}  // namespace coilspin::cli

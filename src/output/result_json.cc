@@ -1,0 +1,92 @@
+#include "src/output/result_json.h"
+
+#include <nlohmann/json.hpp>
+
+namespace coilspin::output {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+Json QuantityJson(const QuantityEstimate& q) {
+  Json j;
+  j["symbol"] = q.symbol;
+  j["unit"] = q.unit;
+  j["value"] = q.value;
+  j["std_error"] = q.std_error;
+  j["ci"] = Json::array({q.ci_low, q.ci_high});
+  j["degrees_of_freedom"] = q.degrees_of_freedom;
+  j["tests"] = q.tests;
+  if (!q.basis.empty()) j["basis"] = q.basis;
+  if (q.at_voltage_V) j["at_voltage"] = *q.at_voltage_V;
+  if (q.at_temperature_degC) j["at_temperature_degC"] = *q.at_temperature_degC;
+  if (!q.note.empty()) j["note"] = q.note;
+  return j;
+}
+
+Json QuantitiesJson(const std::vector<QuantityEstimate>& quantities) {
+  Json j = Json::object();
+  for (const auto& q : quantities) j[q.key] = QuantityJson(q);
+  return j;
+}
+
+Json TestJson(const TestSummary& t) {
+  Json j;
+  j["kind"] = t.kind;
+  j["file"] = t.file;
+  j["samples"] = t.samples;
+  j["method"] = t.method;
+  Json rms = Json::object(), sigma = Json::object(), lag1 = Json::object(), used = Json::object();
+  for (const auto& r : t.residuals) {
+    rms[r.channel] = r.rms;
+    sigma[r.channel] = r.sigma;
+    lag1[r.channel] = r.lag1_autocorrelation;
+    used[r.channel] = r.samples;
+  }
+  j["rms_residual"] = rms;
+  j["noise_sigma"] = sigma;
+  j["residual_lag1_autocorrelation"] = lag1;
+  j["residuals_used"] = used;
+  j["warnings"] = t.warnings;
+  return j;
+}
+
+}  // namespace
+
+std::string ResultJson(const MotorEstimate& e) {
+  Json j;
+  j["format"] = kResultFormat;
+  if (!e.motor_label.empty()) j["motor"] = {{"label", e.motor_label}};
+  j["confidence"] = e.confidence;
+  j["parameters"] = QuantitiesJson(e.parameters);
+  Json missing = Json::object();
+  for (const auto& [key, reason] : e.not_identified) missing[key] = reason;
+  j["not_identified"] = missing;
+  j["ratios"] = QuantitiesJson(e.ratios);
+  j["correlation"] = {{"names", e.correlation_names}, {"matrix", e.correlation}};
+  j["derived"] = QuantitiesJson(e.derived);
+  if (e.consistency) {
+    const Consistency& c = *e.consistency;
+    Json k;
+    k["kt_over_ke"] = c.kt_over_ke ? Json(*c.kt_over_ke) : Json(nullptr);
+    k["ci"] = c.ci_low && c.ci_high ? Json::array({*c.ci_low, *c.ci_high}) : Json(nullptr);
+    k["tolerance"] = c.tolerance;
+    k["verdict"] = c.verdict;
+    k["note"] = c.note;
+    j["consistency"] = k;
+  }
+  Json tests = Json::array();
+  for (const auto& t : e.tests) tests.push_back(TestJson(t));
+  j["tests"] = tests;
+  j["warnings"] = e.warnings;
+  Json solver = Json::array();
+  for (const auto& s : e.solver)
+    solver.push_back({{"converged", s.converged}, {"termination", s.termination}, {"iterations", s.iterations},
+                      {"initial_cost", s.initial_cost}, {"final_cost", s.final_cost}});
+  j["solver"] = solver;
+  Json settings = Json::object();
+  for (const auto& [key, value] : e.settings) settings[key] = value;
+  j["settings"] = settings;
+  return j.dump(2) + "\n";
+}
+
+}  // namespace coilspin::output

@@ -1,0 +1,34 @@
+// The demo recovers the invented truth it was made from (datasets-demo/README.md):
+// R = 1.35 ohm at 20 degC, i.e. 1.35·(234.5 + 25)/(234.5 + 20) at 25 degC
+// (copper law, IEC 60028 constant); L = 0.82 mH; Vb = 0.9 V. Demo data is
+// invented, so this checks the demo, not the method (tests/locked_rotor does that).
+
+#include <gtest/gtest.h>
+
+#include <nlohmann/json.hpp>
+
+#include "cli/run_coilspin.h"
+
+namespace coilspin::testing {
+namespace {
+
+TEST(Demo, RecoversTheInventedMotorWithinItsIntervals) {
+  ScratchFolder folder("demo");
+  const RunResult r = RunCoilspin("demo --json demo.json", folder.path());
+  ASSERT_EQ(r.status, 0) << r.err;
+  const auto j = nlohmann::json::parse(Slurp(folder.path() / "demo.json"));
+  const struct {
+    const char* key;
+    double truth;
+  } truths[] = {{"resistance", 1.35 * (234.5 + 25.0) / (234.5 + 20.0)}, {"inductance", 0.82e-3}, {"brush_drop", 0.9}};
+  for (const auto& t : truths) {
+    const auto& p = j["parameters"][t.key];
+    EXPECT_LE(p["ci"][0].get<double>(), t.truth) << t.key;
+    EXPECT_GE(p["ci"][1].get<double>(), t.truth) << t.key;
+  }
+  EXPECT_EQ(j["motor"]["label"], "dome rotator DR-2");
+  EXPECT_EQ(j["tests"][1]["file"], "locked-rotor-step.csv");
+}
+
+}  // namespace
+}  // namespace coilspin::testing

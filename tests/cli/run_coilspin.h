@@ -1,0 +1,62 @@
+#pragma once
+// Test helper: runs the built coilspin binary and captures its exit status,
+// stdout and stderr.
+
+#include <sys/wait.h>
+
+#include <cstdio>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+#include <string>
+
+namespace coilspin::testing {
+
+struct RunResult {
+  int status = -1;
+  std::string out;
+  std::string err;
+};
+
+inline std::string Slurp(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+inline RunResult RunCoilspin(const std::string& arguments, const std::filesystem::path& folder) {
+  const auto out = folder / "stdout.txt";
+  const auto err = folder / "stderr.txt";
+  const std::string command = "cd '" + folder.string() + "' && '" + std::string(COILSPIN_BINARY) + "' " + arguments +
+                              " >'" + out.string() + "' 2>'" + err.string() + "' </dev/null";
+  const int raw = std::system(command.c_str());
+  RunResult r;
+  r.status = WIFEXITED(raw) ? WEXITSTATUS(raw) : -1;
+  r.out = Slurp(out);
+  r.err = Slurp(err);
+  return r;
+}
+
+// A fresh folder under the system temp directory, removed with the object.
+class ScratchFolder {
+ public:
+  explicit ScratchFolder(const std::string& name)
+      : path_(std::filesystem::temp_directory_path() /
+              ("coilspin_cli_" + name + "_" + std::to_string(::getpid()))) {
+    std::filesystem::remove_all(path_);
+    std::filesystem::create_directories(path_);
+  }
+  ~ScratchFolder() { std::filesystem::remove_all(path_); }
+  const std::filesystem::path& path() const { return path_; }
+  std::filesystem::path Write(const std::string& name, const std::string& contents) const {
+    std::ofstream(path_ / name, std::ios::binary) << contents;
+    return path_ / name;
+  }
+
+ private:
+  std::filesystem::path path_;
+};
+
+}  // namespace coilspin::testing
