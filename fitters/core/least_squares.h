@@ -8,13 +8,25 @@
 // parameters x_j = θ_j / s_j (s_j the parameter's typical magnitude), so every
 // value it moves is O(1); bounds are applied in the same scaled space.
 //
+// Solving (solve.cc). Levenberg–Marquardt with dense QR (Ceres), then two
+// steps Ceres does not take. Bounds: Ceres projects each step onto the box,
+// which can stall the other parameters while one sits on its bound (measured:
+// a line with its slope capped ends with the intercept 2 % off), so a parameter
+// found on a bound is held there and the rest solved again, until the
+// Karush–Kuhn–Tucker signs agree. Refinement: near the minimum the cost stops
+// telling points apart (the relative cost tolerance leaves parameters about
+// √tolerance standard errors off), so Gauss–Newton steps follow, each kept only
+// if it lowers the gradient without raising the cost beyond rounding; a model
+// linear in its parameters ends exact to rounding.
+//
 // Covariance. At the solution, with J the Jacobian of the weighted residuals
 // with respect to x, C = (JᵀJ)⁻¹ (Ceres Covariance, dense SVD). Each group's
 // residual variance is  s_g² = RSS_g / (n_g − h_g), where h_g = trace(C·J_gᵀJ_g)
 // is the group's share of the p fitted degrees of freedom (Σ_g h_g = p; with one
 // group this is the classical s² = RSS/(n − p)). The parameter covariance is
 //     Cov(θ) = S · Σ_g s_g² · C·J_gᵀJ_g·C · S,     S = diag(s_j)
-// which reduces to s²·(JᵀJ)⁻¹ for one group. With `estimate_group_sigmas`
+// which reduces to s²·(JᵀJ)⁻¹ for one group (computed without forming J_gᵀJ_g,
+// which would cost digits: group_covariance.h). With `estimate_group_sigmas`
 // the σ_g are re-estimated from the residuals and the problem solved again, so
 // that each group counts by its own noise.
 //
@@ -28,12 +40,16 @@
 // sees), no covariance is reported: the result names the parameters of each
 // null direction as not identifiable. Residuals that are not independent
 // (autocorrelated time series) make these intervals too narrow; the group
-// statistics report the lag-1 autocorrelation so a caller can tell.
+// statistics report the lag-1 autocorrelation so a caller can tell. A model
+// that is undefined at a trial point may return non-finite residuals: the step
+// is rejected, and nothing is printed (logging is silent; outcomes are in the
+// FitResult). Accuracy on the NIST StRD nonlinear regression sets: docs/nist-strd.md.
 
 #include <ceres/ceres.h>
 
 #include <Eigen/Dense>
 #include <array>
+#include <cmath>
 #include <memory>
 #include <optional>
 #include <string>
@@ -72,6 +88,10 @@ struct SolveOptions {
   bool IsValid(std::string* error) const;
 };
 
+// std_error, ci_low, ci_high and degrees_of_freedom are NaN when no covariance
+// exists (FitResult::not_identifiable); a fixed parameter has std_error 0, the
+// interval [value, value] and 0 degrees of freedom. degrees_of_freedom is
+// +infinity when the σ_g are known (residual_variance_from_data = false).
 struct ParameterEstimate {
   std::string name;
   double value = 0.0;
@@ -80,17 +100,25 @@ struct ParameterEstimate {
   double ci_high = 0.0;
   double degrees_of_freedom = 0.0;
   bool fixed = false;
+  // The estimate sits on one of its bounds. The Wald interval ignores the bound
+  // (the covariance is the unconstrained one), so treat it with care.
+  bool at_bound = false;
 };
 
 struct GroupStatistics {
   std::string name;
   int num_residuals = 0;
   double sigma = 0.0;                // σ_g used in the final solve
-  double residual_variance = 0.0;    // s_g² of the weighted residuals (≈ 1 when σ_g is right)
+  // s_g² = RSS_g/(n_g − h_g) of the weighted residuals (≈ 1 when σ_g is right), as
+  // measured; the covariance uses it only with residual_variance_from_data. NaN
+  // when n_g − h_g is not positive.
+  double residual_variance = 0.0;
   double rms = 0.0;                  // RMS of the unweighted residuals, in their unit
   double lag1_autocorrelation = 0.0; // of the residual sequence, in order of addition
   double degrees_of_freedom = 0.0;   // n_g − h_g
-  std::vector<double> information_share;  // per parameter: v_gj / Σ_g v_gj
+  // v_gj / Σ_g v_gj for every parameter, in the order added (0 for fixed ones).
+  std::vector<double> information_share;
+  double fitted_degrees_of_freedom = 0.0;  // h_g = trace(C·J_gᵀJ_g); Σ_g h_g = p
 };
 
 struct FitResult {
@@ -98,15 +126,17 @@ struct FitResult {
   bool converged = false;
   std::string termination;           // Ceres termination type
   std::string message;               // Ceres message, or why not usable
-  int iterations = 0;
-  double initial_cost = 0.0;         // ½·S at start and at the end (Ceres convention)
+  int iterations = 0;                // summed over all solves
+  double initial_cost = 0.0;         // ½·S at start and at the end of the last solve (Ceres convention)
   double final_cost = 0.0;
   int num_residuals = 0;
   int num_estimated = 0;             // p
+  int num_solves = 0;                // 1, or 1 + group_sigma_rounds with estimate_group_sigmas
+  int refinement_steps = 0;          // Gauss–Newton steps taken after Levenberg–Marquardt, last solve
   double confidence = 0.95;
   std::vector<ParameterEstimate> parameters;  // same order as added
   Eigen::MatrixXd covariance;        // physical units, estimated parameters and fixed ones (zero rows)
-  Eigen::MatrixXd correlation;
+  Eigen::MatrixXd correlation;       // same layout; rows of fixed parameters are zero
   std::vector<GroupStatistics> groups;
   // Each null direction of JᵀJ, as the names of the parameters it involves.
   std::vector<std::vector<std::string>> not_identifiable;
@@ -114,6 +144,11 @@ struct FitResult {
   const ParameterEstimate& Get(const std::string& name) const;  // asserts the name exists
   int IndexOf(const std::string& name) const;                     // -1 when absent
 };
+
+// Internal types of the implementation, defined in fitters/core/problem_internals.h.
+struct GroupEvaluation;
+struct FitAnalysis;
+struct SolveRun;
 
 class LeastSquaresProblem {
  public:
@@ -160,16 +195,44 @@ class LeastSquaresProblem {
         pointers[k] = &physical[k];
       }
       if (!model(pointers.data(), r)) return false;
-      for (int i = 0; i < num_residuals; ++i) r[i] /= *sigma;
+      for (int i = 0; i < num_residuals; ++i) {
+        r[i] /= *sigma;
+        // A trial step that overflows (exp of a wild argument) is reported as a
+        // failed evaluation: Ceres rejects the step without building its long
+        // per-block diagnostic for a non-finite value.
+        if (!Finite(r[i])) return false;
+      }
       return true;
     }
   };
+  static bool Finite(double value) { return std::isfinite(value); }
+  template <int N>
+  static bool Finite(const ceres::Jet<double, N>& value) {
+    return std::isfinite(value.a) && value.v.allFinite();
+  }
 
   double* ScaledValue(int parameter);
   double ScaleOf(int parameter) const;
   const double* SigmaOf(int group) const;
   void RegisterBlock(int group, ceres::CostFunction* cost, const std::vector<int>& parameters,
                      int num_residuals);
+
+  // Solving (solve.cc), the covariance step (analysis.cc) and the result (report.cc).
+  std::vector<int> EstimatedParameters() const;
+  std::vector<double*> BlocksOf(const std::vector<int>& parameters) const;
+  std::string StartOutsideBounds() const;
+  ceres::Solver::Summary Minimise(const SolveOptions& options);
+  SolveRun SolveWithActiveBounds(const SolveOptions& options, const std::vector<int>& estimated);
+  std::vector<int> OnBound(const std::vector<int>& parameters) const;
+  std::vector<int> BoundNoLongerActive(const std::vector<int>& held);
+  int Refine(const std::vector<int>& free);
+  std::vector<GroupEvaluation> EvaluateGroups(const std::vector<int>& estimated);
+  std::optional<Eigen::MatrixXd> CeresInverseInformation(const std::vector<int>& estimated,
+                                                         double rank_tolerance);
+  FitAnalysis Analyse(const SolveOptions& options, const std::vector<int>& estimated);
+  bool RescaleGroupSigmas(const FitAnalysis& analysis);
+  FitResult Report(const SolveOptions& options, const std::vector<int>& estimated, const SolveRun& run,
+                   const FitAnalysis& analysis) const;
 
   std::unique_ptr<ceres::Problem> problem_;
   std::vector<std::unique_ptr<Parameter>> parameters_;

@@ -62,6 +62,20 @@ struct Consistency {
   std::string note;
 };
 
+// Shaft torque against speed at one terminal voltage, with a pointwise band.
+struct TorqueSpeedPoint {
+  double speed_rad_s = 0.0;
+  double torque_N_m = 0.0;
+  double ci_low = 0.0;
+  double ci_high = 0.0;
+};
+
+struct TorqueSpeedLine {
+  double at_voltage_V = 0.0;
+  bool includes_friction = false;
+  std::vector<TorqueSpeedPoint> points;
+};
+
 struct MotorEstimate {
   std::string motor_label;
   double confidence = 0.95;
@@ -72,6 +86,7 @@ struct MotorEstimate {
   std::vector<std::string> correlation_names;         // parameters of the covariance, in order
   std::vector<std::vector<double>> correlation;
   std::vector<std::vector<double>> covariance;          // SI, same order (for derived quantities)
+  std::optional<TorqueSpeedLine> torque_speed;
   std::optional<Consistency> consistency;
   std::vector<TestSummary> tests;
   std::vector<SolverSummary> solver;

@@ -1,0 +1,60 @@
+#include "fitters/core/group_covariance.h"
+
+#include <limits>
+
+namespace coilspin::core {
+
+CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
+                                  const std::vector<GroupTerms>& groups, bool variance_from_data) {
+  const Eigen::Index p = inverse_information.rows();
+  const Eigen::Index num_groups = static_cast<Eigen::Index>(groups.size());
+  const double not_a_number = std::numeric_limits<double>::quiet_NaN();
+  const double infinity = std::numeric_limits<double>::infinity();
+  const Eigen::MatrixXd& c = inverse_information;
+
+  CovarianceBreakdown out;
+  out.variance_parts = Eigen::MatrixXd::Zero(num_groups, p);
+  out.covariance = Eigen::MatrixXd::Zero(p, p);
+  out.degrees_of_freedom = Eigen::VectorXd::Constant(p, infinity);
+
+  for (Eigen::Index g = 0; g < num_groups; ++g) {
+    const GroupTerms& group = groups[static_cast<std::size_t>(g)];
+    if (group.num_residuals == 0) {
+      out.fitted_degrees_of_freedom.push_back(0.0);
+      out.residual_degrees_of_freedom.push_back(0.0);
+      out.residual_variance.push_back(0.0);
+      out.measured_residual_variance.push_back(0.0);
+      continue;
+    }
+    const Eigen::MatrixXd projected = group.jacobian * c;  // B_g = J_g·C
+    const double fitted = projected.cwiseProduct(group.jacobian).sum();
+    const double residual_dof = group.num_residuals - fitted;
+    const double measured =
+        residual_dof > kNoResidualDegreesOfFreedom ? group.weighted_rss / residual_dof : not_a_number;
+    const double used = variance_from_data ? measured : 1.0;
+    out.fitted_degrees_of_freedom.push_back(fitted);
+    out.residual_degrees_of_freedom.push_back(residual_dof);
+    out.residual_variance.push_back(used);
+    out.measured_residual_variance.push_back(measured);
+
+    const Eigen::MatrixXd sandwich = projected.transpose() * projected;  // M_g = C·J_gᵀJ_g·C
+    out.covariance += used * sandwich;
+    out.variance_parts.row(g) = used * sandwich.diagonal().transpose();
+  }
+
+  if (!variance_from_data) return out;
+  for (Eigen::Index j = 0; j < p; ++j) {
+    double total = 0.0;
+    double spread = 0.0;
+    for (Eigen::Index g = 0; g < num_groups; ++g) {
+      const double part = out.variance_parts(g, j);
+      if (part == 0.0) continue;
+      total += part;
+      spread += part * part / out.residual_degrees_of_freedom[static_cast<std::size_t>(g)];
+    }
+    out.degrees_of_freedom(j) = spread > 0.0 ? total * total / spread : infinity;
+  }
+  return out;
+}
+
+}  // namespace coilspin::core

@@ -1,0 +1,24 @@
+#pragma once
+// Summary statistics of one group's residual sequence e_1 … e_n (unweighted,
+// in the order the residuals were added).
+//
+//   root mean square   rms = sqrt( Σ e_k² / n )
+//   lag-1 autocorrelation (Box & Jenkins, Time Series Analysis, the sample
+//   autocorrelation function at lag 1)
+//       r_1 = Σ_{k=1}^{n-1} (e_k − ē)(e_{k+1} − ē) / Σ_{k=1}^{n} (e_k − ē)²
+//
+// White residuals give r_1 ≈ 0 (standard error ≈ 1/√n); a first-order
+// autoregressive sequence e_k = φ·e_{k−1} + w_k gives r_1 ≈ φ. Intervals that
+// assume independent residuals are too narrow when r_1 is clearly positive.
+
+#include <Eigen/Dense>
+
+namespace coilspin::core {
+
+// 0 for an empty sequence.
+double RootMeanSquare(const Eigen::VectorXd& residuals);
+
+// 0 when there are fewer than two residuals or they are all equal (no spread to correlate).
+double Lag1Autocorrelation(const Eigen::VectorXd& residuals);
+
+}  // namespace coilspin::core
