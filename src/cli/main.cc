@@ -5,6 +5,7 @@
 #include <cstdlib>
 #include <iostream>
 
+#include "src/cli/consistency_command.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
@@ -38,6 +39,11 @@ int main(int argc, char** argv) {
   CLI::App* simulate_command = app.add_subcommand("simulate", "Write a synthetic bench log from a parameter set");
   cli::DeclareSimulateOptions(simulate_command, &simulate);
 
+  cli::ConsistencyArguments consistency;
+  CLI::App* consistency_command =
+      app.add_subcommand("consistency", "Check a datasheet's torque and back-EMF constants against Kt = Ke (SI)");
+  cli::DeclareConsistencyOptions(consistency_command, &consistency);
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -51,6 +57,7 @@ int main(int argc, char** argv) {
       return cli::RunFit(demo, std::cout);
     }
     if (*simulate_command) return cli::RunSimulate(simulate);
+    if (*consistency_command) return cli::RunConsistency(consistency, std::cout);
   } catch (const InputError& e) {
     std::cerr << "coilspin: error: " << e.what() << "\n";
     return cli::kBadInput;

@@ -13,6 +13,8 @@ inline constexpr double kDegreesPerRevolution = 360.0;      // physics (definiti
 // ---- Time and temperature --------------------------------------------------
 
 inline constexpr double kSecondsPerMinute = 60.0;  // physics (definition)
+// 1 rad/s = 60/(2π) rpm (physics: one revolution is 2π rad, one minute 60 s).
+inline constexpr double kRpmPerRadPerSecond = kSecondsPerMinute / kRadiansPerRevolution;
 // 0 degC = 273.15 K exactly: t/degC = T/K − 273.15 (NIST SP 811, 4.2.1.1, degree Celsius).
 inline constexpr double kCelsiusZero_K = 273.15;
 
@@ -21,6 +23,7 @@ inline constexpr double kCelsiusZero_K = 273.15;
 inline constexpr double kMilli = 1e-3;
 inline constexpr double kMicro = 1e-6;
 inline constexpr double kCenti = 1e-2;
+inline constexpr double kKilo = 1e3;
 
 // ---- Units of force and torque ---------------------------------------------
 
@@ -29,6 +32,20 @@ inline constexpr double kCenti = 1e-2;
 inline constexpr double kStandardGravity_m_s2 = 9.80665;
 // 1 ozf·in = 7.061552 × 10⁻³ N·m (NIST SP 811, Appendix B, ounce (avoirdupois)-force inch).
 inline constexpr double kOunceForceInch_N_m = 7.061552e-3;
+
+// ---- Three-phase windings (star-connected, sinusoidal) ------------------------
+
+// Peak over rms of a sinusoid: √2 (physics: mean of sin² over a period is 1/2).
+inline constexpr double kSinusoidPeakOverRms = 1.41421356237309504880;
+// Line-to-line over phase voltage of a star connection: √3 (physics: two phasors of
+// equal length 120° apart differ by √3 times that length, |1 − e^(−j2π/3)| = √3).
+inline constexpr double kStarLineOverPhaseVoltage = 1.73205080756887729353;
+
+// ---- Tolerances --------------------------------------------------------------
+
+// Kt/Ke is "consistent" when it can lie within 1 ± 0.05 (common practice: catalogue
+// constants are usually quoted to within a few per cent; the user may override it).
+inline constexpr double kDefaultKtKeTolerance = 0.05;
 
 // ---- Materials ---------------------------------------------------------------
 
