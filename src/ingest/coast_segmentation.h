@@ -1,0 +1,99 @@
+#pragma once
+// Spin-down segmentation: where the coast of an open-circuit spin-down begins
+// (power off) and ends (rest).
+//
+// Physics. Once the supply is disconnected i = 0 and J·dω/dt = −B·ω − Tc·sgn(ω):
+//   ω(t) = (ω₀ + Tc/B)·e^(−t·B/J) − Tc/B,  at rest from t_s = (J/B)·ln(1 + B·ω₀/Tc),
+// and the open terminals show the back-EMF, v = Ke·ω.
+//
+// Power off, from the first evidence that holds (each candidate must lie where
+// the speed is still at its run level and before it falls):
+//  1. current logged: the first sample of a stretch of at least 20 samples with
+//     |i| ≤ 6 σ_i (σ_i from first differences; a lone sample above does not end
+//     it), after a running current whose median is above twice that level
+//     ("current fell to zero");
+//  2. voltage logged: the largest one-sample drop of v beyond 8·√2 σ_v whose
+//     5-sample medians show a lasting drop, after which v follows the speed
+//     (correlation ≥ 0.9 over the coast, v = Ke·ω) ("voltage collapsed to the
+//     back-EMF");
+//  3. speed alone: the last departure of the speed from its run level (found
+//     first with a 2 % drift allowance, then by 4 σ_ω from the median of the
+//     32 run samples before it), moved back to where a straight line through
+//     the first samples of the fall meets the run level ("speed began to fall").
+// Rest: the first sample from which |ω| stays within 4 σ_ω for 16 samples (a
+// lone sample outside does not break that), moved on to where a straight line
+// through the approach meets 0 (by at most those 16 samples: an exponential
+// tail never does). The line is fitted twice: first through the samples above
+// the band, then through every sample before its crossing, since samples
+// chosen for lying above the band sit high.
+// σ of speed and voltage comes from second differences, which a ramp does not
+// inflate (a coast is a ramp); a derived speed should pass its own σ.
+//
+// Assumptions: one coast per log, from a steady run; the precision of route 3
+// is about σ_ω/|dω/dt| in time, that of routes 1 and 2 one sample.
+
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "src/ingest/bench_log.h"
+
+namespace coilspin {
+
+// A log that ends while the speed is above 20 % of its run speed has missed the
+// end of the coast, where dω/dt → −Tc/J shows the Coulomb friction on its own;
+// B and Tc are then hard to separate (common practice).
+inline constexpr double kStopsLongBeforeRestFraction = 0.2;
+
+enum class PowerOffEvidence { kCurrentFell, kVoltageCollapsed, kSpeedFell };
+
+// "current fell to zero", "voltage collapsed to the back-EMF", "speed began to fall".
+std::string_view PowerOffEvidenceText(PowerOffEvidence evidence);
+
+struct CoastSegment {
+  std::size_t power_off = 0;  // first sample of the coast
+  std::size_t rest = 0;       // one past the last sample before the rotor is at rest; size() if it never rests
+  bool reached_rest = false;
+  PowerOffEvidence evidence = PowerOffEvidence::kSpeedFell;
+  std::string how;                  // PowerOffEvidenceText(evidence)
+  double direction = 1.0;           // sgn ω during the run
+  double run_speed_rad_s = 0.0;     // speed level just before power off (signed)
+  double speed_sigma_rad_s = 0.0;   // noise σ of the speed used for the bands
+  double off_current_mean_A = 0.0;  // mean i over [power_off, rest); 0 when current is not logged
+  double off_current_rms_A = 0.0;   // √(mean i²) over [power_off, rest); 0 when current is not logged
+  std::size_t size() const { return rest - power_off; }
+};
+
+// Uses the speed channel; a log with position only is differentiated with
+// SpeedFromPosition's defaults (encoder_speed.h). Empty when the log has
+// neither, or no coast from a run level.
+std::optional<CoastSegment> FindCoast(const BenchLog& log);
+
+// With the speed given (e.g. derived from position) and, optionally, its noise
+// σ (a filtered speed's σ is not visible in its differences). Throws
+// std::invalid_argument when a channel's length differs from the log's.
+std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<double>& speed_rad_s,
+                                      std::optional<double> speed_sigma_rad_s = std::nullopt);
+
+// Current during the coast: its RMS over [power_off, rest) exceeds 3 noise σ
+// (σ from first differences). RMS² = mean² + variance, so a steady braking
+// current (a diode, a driver holding the bridge) and a chopped one both count.
+// False when the log has no current.
+bool CurrentFlowsDuringCoast(const BenchLog& log, const CoastSegment& coast);
+
+// The log ends before rest while |ω| (median of its last 5 samples) is still
+// above `fraction` of the run speed at power off.
+bool StopsLongBeforeRest(const std::vector<double>& speed_rad_s, const CoastSegment& coast,
+                         double fraction = kStopsLongBeforeRestFraction);
+
+struct CoastWarnings {
+  bool current_flows = false;
+  bool stops_long_before_rest = false;
+  std::vector<std::string> messages;  // one sentence per warning, with the numbers
+};
+
+CoastWarnings CheckCoast(const BenchLog& log, const std::vector<double>& speed_rad_s, const CoastSegment& coast);
+
+}  // namespace coilspin
