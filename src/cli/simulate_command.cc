@@ -1,18 +1,27 @@
 #include "src/cli/simulate_command.h"
 
+#include <sstream>
 #include <stdexcept>
 
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
 #include "src/ingest/input_error.h"
+#include "src/model/free_shaft_plan_defaults.h"
 #include "src/model/simulate_locked_rotor.h"
+#include "src/model/simulate_no_load.h"
+#include "src/model/simulate_spin_down.h"
 
 namespace coilspin::cli {
 namespace {
 
-// Defaults: a plateau logger at 1 kHz, a scope at 100 kHz.
+// Defaults: a plateau logger at 1 kHz, a scope at 100 kHz, a free-shaft logger at 1 kHz.
 constexpr double kPlateauSamplePeriod_s = 1e-3;
 constexpr double kStepSamplePeriod_s = 10e-6;
+constexpr double kFreeShaftSamplePeriod_s = 1e-3;
+constexpr double kPlateauHold_s = 0.5;
+constexpr const char* kCountsUnit = "counts";
+
+enum class Kind { kLockedRotor, kNoLoad, kSpinDown };
 
 [[noreturn]] void Bad(const std::string& message) {
   throw InputError(InputErrorKind::kBadOption, "", 0, 0, message);
@@ -25,28 +34,226 @@ char Delimiter(const std::string& text) {
   Bad("--delimiter must be ',', ';' or tab, got '" + text + "'");
 }
 
+Kind KindOf(const std::string& text) {
+  if (text == "locked-rotor") return Kind::kLockedRotor;
+  if (text == "no-load") return Kind::kNoLoad;
+  if (text == "spin-down") return Kind::kSpinDown;
+  Bad("simulate writes locked-rotor, no-load or spin-down logs, not '" + text + "'");
+}
+
+bool LogsPosition(const SimulateArguments& a) { return a.counts_per_rev.has_value() || a.log_speed_and_position; }
+bool LogsSpeed(const SimulateArguments& a) { return !a.counts_per_rev.has_value() || a.log_speed_and_position; }
+
+// An option that was given where it has no meaning is an error, not silently ignored.
+void RejectInapplicable(const SimulateArguments& a, Kind kind) {
+  const bool locked = kind == Kind::kLockedRotor, no_load = kind == Kind::kNoLoad;
+  const bool spin_down = kind == Kind::kSpinDown, free_shaft = no_load || spin_down;
+  const bool plateaus = locked && a.step_spec.empty();
+  struct Rule {
+    const char* option;
+    bool given;
+    bool applies;
+    const char* where;
+  };
+  const Rule rules[] = {
+      {"--step", !a.step_spec.empty(), locked, "locked-rotor"},
+      {"--levels", !a.levels_V.empty(), plateaus || no_load, "locked-rotor plateaus and no-load"},
+      {"--hold", a.hold_s.has_value(), plateaus || no_load, "locked-rotor plateaus and no-load"},
+      {"--log-temperature", a.log_temperature, locked || no_load, "locked-rotor and no-load"},
+      {"--heating-per-plateau", a.bench.heating_per_plateau_K != 0.0, locked, "locked-rotor"},
+      {"--log-torque", a.log_torque, plateaus, "locked-rotor plateaus"},
+      {"--torque-noise", a.torque_noise_sigma_N_m.has_value(), a.log_torque, "a torque column (--log-torque)"},
+      {"--supply", a.supply_V.has_value(), spin_down, "spin-down"},
+      {"--run", a.run_s.has_value(), spin_down, "spin-down"},
+      {"--coast", a.coast_s.has_value(), spin_down, "spin-down"},
+      {"--brake-resistance", a.brake_resistance_ohm.has_value(), spin_down, "spin-down"},
+      {"--no-coast-voltage", a.no_coast_voltage, spin_down, "spin-down"},
+      {"--no-coast-current", a.no_coast_current, spin_down, "spin-down"},
+      {"--cpr", a.counts_per_rev.has_value(), free_shaft, "no-load and spin-down"},
+      {"--log-speed-and-position", a.log_speed_and_position, free_shaft, "no-load and spin-down"},
+      {"--gear-ratio", a.gear_ratio.has_value(), free_shaft, "no-load and spin-down"},
+      {"--speed-noise", a.speed_noise_sigma_rad_s.has_value(), free_shaft && LogsSpeed(a),
+       "a speed column (no-load or spin-down, without --cpr or with --log-speed-and-position)"},
+      {"--position-unit", a.position_unit.has_value(), free_shaft && LogsPosition(a),
+       "a position column (no-load or spin-down with --cpr or --log-speed-and-position)"},
+  };
+  for (const Rule& rule : rules) {
+    if (rule.given && !rule.applies) Bad(std::string(rule.option) + " applies to " + rule.where + " only");
+  }
+}
+
+// The motor parameters the kind's bench needs, with Kt defaulting to Ke.
+model::MotorParameters MotorFor(const SimulateArguments& a, Kind kind) {
+  model::MotorParameters motor = a.motor;
+  motor.torque_constant_N_m_per_A = a.torque_constant.value_or(motor.back_emf_constant_V_s_per_rad);
+  const std::string name = kind == Kind::kNoLoad ? "no-load" : "spin-down";
+  if (kind != Kind::kLockedRotor) {
+    if (!(motor.back_emf_constant_V_s_per_rad > 0.0)) Bad(name + " needs --back-emf-constant (Ke, V*s/rad)");
+    if (!(motor.inertia_kg_m2 > 0.0)) Bad(name + " needs --inertia (J, kg*m^2)");
+  }
+  if (a.log_torque && !(motor.torque_constant_N_m_per_A > 0.0)) {
+    Bad("--log-torque needs --torque-constant (Kt, N*m/A) or --back-emf-constant (Kt = Ke)");
+  }
+  return motor;
+}
+
+model::BenchConditions BenchFor(const SimulateArguments& a) {
+  model::BenchConditions bench = a.bench;
+  bench.encoder_counts_per_rev = a.counts_per_rev.value_or(0);
+  bench.gear_ratio = a.gear_ratio.value_or(bench.gear_ratio);
+  bench.speed_noise_sigma_rad_s = a.speed_noise_sigma_rad_s.value_or(0.0);
+  bench.torque_noise_sigma_N_m = a.torque_noise_sigma_N_m.value_or(0.0);
+  return bench;
+}
+
+model::ShaftChannels ShaftFor(const SimulateArguments& a) {
+  if (a.log_speed_and_position) return model::ShaftChannels::kSpeedAndPosition;
+  return a.counts_per_rev ? model::ShaftChannels::kPosition : model::ShaftChannels::kSpeed;
+}
+
+std::string Text(double value) {
+  std::ostringstream text;
+  text << value;
+  return text.str();
+}
+
+model::SampledLog LockedRotorLog(const SimulateArguments& a, const model::MotorParameters& motor,
+                                 const model::BenchConditions& bench, output::CsvStyle& style) {
+  if (!a.step_spec.empty()) {
+    const auto colon = a.step_spec.find(':');
+    if (colon == std::string::npos) Bad("--step expects FROM:TO volts, e.g. 0:12, got '" + a.step_spec + "'");
+    model::StepPlan plan;
+    try {
+      plan.supply_before_V = std::stod(a.step_spec.substr(0, colon));
+      plan.supply_after_V = std::stod(a.step_spec.substr(colon + 1));
+    } catch (const std::logic_error&) {
+      Bad("--step expects FROM:TO volts, e.g. 0:12, got '" + a.step_spec + "'");
+    }
+    plan.before_s = a.before_s;
+    plan.after_s = a.after_s;
+    plan.sample_period_s = a.sample_period_s.value_or(kStepSamplePeriod_s);
+    style.comment_lines.push_back("simulated locked-rotor step capture (coilspin simulate)");
+    return model::SimulateLockedRotorStep(motor, plan, bench);
+  }
+  if (a.levels_V.empty()) Bad("give --levels for plateaus or --step FROM:TO for a step capture");
+  model::PlateauPlan plan;
+  plan.supply_levels_V = a.levels_V;
+  plan.hold_s = a.hold_s.value_or(kPlateauHold_s);
+  plan.sample_period_s = a.sample_period_s.value_or(kPlateauSamplePeriod_s);
+  plan.log_temperature = a.log_temperature;
+  plan.log_torque = a.log_torque;
+  style.comment_lines.push_back("simulated locked-rotor plateaus (coilspin simulate)");
+  return model::SimulateLockedRotorPlateaus(motor, plan, bench);
+}
+
+model::SampledLog NoLoadLog(const SimulateArguments& a, const model::MotorParameters& motor,
+                            const model::BenchConditions& bench, output::CsvStyle& style) {
+  if (a.levels_V.empty()) Bad("no-load needs --levels, the supply voltages, e.g. --levels 3,6,9,12");
+  model::NoLoadPlan plan;
+  plan.supply_levels_V = a.levels_V;
+  plan.hold_s = a.hold_s ? *a.hold_s : model::SettlingTime_s(motor, bench);
+  plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
+  plan.shaft = ShaftFor(a);
+  plan.log_temperature = a.log_temperature;
+  style.comment_lines.push_back("simulated no-load levels held " + Text(plan.hold_s) + " s each (coilspin simulate)");
+  return model::SimulateNoLoad(motor, plan, bench);
+}
+
+model::SampledLog SpinDownLog(const SimulateArguments& a, const model::MotorParameters& motor,
+                              const model::BenchConditions& bench, output::CsvStyle& style) {
+  if (!a.supply_V) Bad("spin-down needs --supply, the run voltage [V]");
+  model::SpinDownPlan plan;
+  plan.supply_V = *a.supply_V;
+  plan.brake_resistance_ohm = a.brake_resistance_ohm;
+  plan.run_s = a.run_s ? *a.run_s : model::SettlingTime_s(motor, bench);
+  plan.coast_s = a.coast_s ? *a.coast_s : model::CoastTime_s(motor, plan);
+  plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
+  plan.log_voltage = !a.no_coast_voltage;
+  plan.log_current = !a.no_coast_current;
+  plan.shaft = ShaftFor(a);
+  const std::string coast = plan.brake_resistance_ohm
+                                ? "through a " + Text(*plan.brake_resistance_ohm) + " ohm braking resistor"
+                                : "open circuit";
+  style.comment_lines.push_back("simulated spin-down, supply disconnected at t = " +
+                                Text(model::SpinDownPowerOffTime_s(plan)) + " s, coast " + coast +
+                                " (coilspin simulate)");
+  return model::SimulateSpinDown(motor, plan, bench);
+}
+
+output::CsvStyle StyleFor(const SimulateArguments& a, const model::BenchConditions& bench) {
+  output::CsvStyle style = a.style;
+  style.delimiter = Delimiter(a.delimiter);
+  style.header_for = ParseQuantityMap(a.rename_specs, "--header");
+  style.counts_per_rev = bench.encoder_counts_per_rev;
+  if (a.position_unit) {
+    style.position_unit = *a.position_unit;
+  } else if (bench.encoder_counts_per_rev > 0) {
+    style.position_unit = kCountsUnit;
+  }
+  std::string error;
+  if (!style.IsValid(&error)) Bad(error);
+  return style;
+}
+
+// "key: value" notes a reader needs to interpret the shaft columns.
+void AddShaftNotes(const model::BenchConditions& bench, output::CsvStyle& style) {
+  if (bench.encoder_counts_per_rev > 0) {
+    style.comment_lines.push_back("encoder_cpr: " + std::to_string(bench.encoder_counts_per_rev));
+  }
+  if (bench.gear_ratio != 1.0) {
+    style.comment_lines.push_back("gear_ratio: " + Text(bench.gear_ratio) +
+                                  " (motor turns per output turn; speed and position at the output)");
+  }
+}
+
 }  // namespace
 
 void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
-  c->add_option("kind", a->kind, "Test to simulate: locked-rotor")->required();
+  c->add_option("kind", a->kind, "Test to simulate: locked-rotor, no-load or spin-down")->required();
   c->add_option("--out", a->out_path, "CSV file to write (atomically)")->required();
+  // The motor (SI). Every kind needs R and L; no-load and spin-down also Ke and J.
   c->add_option("--resistance", a->motor.resistance_ohm, "R [ohm] at the winding's starting temperature")
       ->required()->check(CLI::PositiveNumber);
   c->add_option("--inductance", a->motor.inductance_H, "L [H]")->required()->check(CLI::PositiveNumber);
   c->add_option("--brush-drop", a->motor.brush_drop_V, "Vb [V]")->check(CLI::NonNegativeNumber);
-  c->add_option("--levels", a->levels_V, "Supply levels [V] of the plateaus, e.g. --levels 2,4,6,-3")->delimiter(',');
-  c->add_option("--hold", a->hold_s, "Time at each level [s]")->check(CLI::PositiveNumber);
+  c->add_option("--back-emf-constant", a->motor.back_emf_constant_V_s_per_rad, "Ke [V*s/rad] (no-load, spin-down)")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--torque-constant", a->torque_constant, "Kt [N*m/A]; default Ke (ideal machine, SI)")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--inertia", a->motor.inertia_kg_m2, "J [kg*m^2] (no-load, spin-down)")->check(CLI::PositiveNumber);
+  c->add_option("--viscous-friction", a->motor.viscous_friction_N_m_s_per_rad, "B [N*m*s/rad]")
+      ->check(CLI::NonNegativeNumber);
+  c->add_option("--coulomb-friction", a->motor.coulomb_friction_N_m, "Tc [N*m]")->check(CLI::NonNegativeNumber);
+  // The test plan.
+  c->add_option("--levels", a->levels_V, "Supply levels [V]: locked-rotor plateaus or no-load levels, e.g. --levels 2,4,6,-3")
+      ->delimiter(',');
+  c->add_option("--hold", a->hold_s, "Time at each level [s] (0.5 locked-rotor; no-load: until settled)")
+      ->check(CLI::PositiveNumber);
   c->add_option("--step", a->step_spec, "A step capture instead of plateaus: FROM:TO supply volts, e.g. 0:12");
   c->add_option("--before", a->before_s, "Time logged before the step [s]")->check(CLI::PositiveNumber);
   c->add_option("--after", a->after_s, "Time logged after the step [s]")->check(CLI::PositiveNumber);
-  c->add_option("--sample-period", a->sample_period_s, "Logger sample period [s] (1e-3 plateaus, 1e-5 step)")
+  c->add_option("--supply", a->supply_V, "Spin-down: supply voltage [V] of the run");
+  c->add_option("--run", a->run_s, "Spin-down: time at the supply before it is disconnected [s] (default: until settled)")
       ->check(CLI::PositiveNumber);
+  c->add_option("--coast", a->coast_s, "Spin-down: time logged after the disconnection [s] (default: to rest)")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--brake-resistance", a->brake_resistance_ohm,
+                "Spin-down: coast through this resistance [ohm] across the terminals instead of open circuit")
+      ->check(CLI::NonNegativeNumber);
+  c->add_flag("--no-coast-voltage", a->no_coast_voltage, "Spin-down: no voltage column");
+  c->add_flag("--no-coast-current", a->no_coast_current, "Spin-down: no current column");
+  c->add_option("--sample-period", a->sample_period_s,
+                "Logger sample period [s] (1e-3 plateaus and free shaft, 1e-5 step)")->check(CLI::PositiveNumber);
+  // The bench.
   c->add_option("--supply-resistance", a->bench.supply_resistance_ohm, "Supply internal resistance [ohm]")
       ->check(CLI::NonNegativeNumber);
   c->add_option("--voltage-noise", a->bench.voltage_noise_sigma_V, "Voltage noise sigma [V]")
       ->check(CLI::NonNegativeNumber);
   c->add_option("--current-noise", a->bench.current_noise_sigma_A, "Current noise sigma [A]")
       ->check(CLI::NonNegativeNumber);
+  c->add_option("--speed-noise", a->speed_noise_sigma_rad_s, "Speed noise sigma [rad/s] at the logged shaft")
+      ->check(CLI::NonNegativeNumber);
+  c->add_option("--torque-noise", a->torque_noise_sigma_N_m, "Torque noise sigma [N*m]")->check(CLI::NonNegativeNumber);
   c->add_option("--voltage-lsb", a->bench.voltage_lsb_V, "Voltage ADC step [V]")->check(CLI::NonNegativeNumber);
   c->add_option("--current-lsb", a->bench.current_lsb_A, "Current ADC step [A]")->check(CLI::NonNegativeNumber);
   c->add_option("--temperature", a->bench.winding_temperature_degC, "Winding temperature at the start [degC]");
@@ -54,49 +261,40 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
                 "Temperature [degC] at which --resistance is given");
   c->add_option("--heating-per-plateau", a->bench.heating_per_plateau_K, "Winding temperature rise per level [K]");
   c->add_flag("--log-temperature", a->log_temperature, "Add a temperature [degC] column");
+  c->add_flag("--log-torque", a->log_torque, "Locked-rotor plateaus: add a load-cell torque column, tau = Kt*i");
+  c->add_option("--cpr", a->counts_per_rev, "An encoder of this many counts per revolution: log position [counts] instead of speed")
+      ->check(CLI::PositiveNumber);
+  c->add_flag("--log-speed-and-position", a->log_speed_and_position, "Log both speed and position");
+  c->add_option("--gear-ratio", a->gear_ratio, "Motor turns per output turn: speed and position read at the gearbox output")
+      ->check(CLI::PositiveNumber);
   c->add_option("--seed", a->bench.seed, "Noise seed (same seed, same file)");
+  // The file.
   c->add_option("--time-unit", a->style.time_unit, "s | ms | us");
   c->add_option("--voltage-unit", a->style.voltage_unit, "V | mV");
   c->add_option("--current-unit", a->style.current_unit, "A | mA");
+  c->add_option("--speed-unit", a->style.speed_unit, "rad/s | rpm | rev/s");
+  c->add_option("--position-unit", a->position_unit, "rad | deg | rev | counts (default counts with --cpr, else rad)");
+  c->add_option("--torque-unit", a->style.torque_unit, "N*m | mN*m | oz*in | kgf*cm");
   c->add_option("--delimiter", a->delimiter, "',' ';' or tab");
   c->add_flag("--decimal-comma", a->style.decimal_comma, "Write 1,25 (needs --delimiter ';')");
   c->add_option("--header", a->rename_specs, "Header to write for a quantity, e.g. --header current=\"I_meas\"");
 }
 
 int RunSimulate(const SimulateArguments& a) {
-  if (a.kind != "locked-rotor")
-    Bad("simulate supports locked-rotor logs in this version of coilspin, got '" + a.kind + "'");
-  output::CsvStyle style = a.style;
-  style.delimiter = Delimiter(a.delimiter);
-  style.header_for = ParseQuantityMap(a.rename_specs, "--header");
-  std::string error;
-  if (!style.IsValid(&error)) Bad(error);
+  const Kind kind = KindOf(a.kind);
+  RejectInapplicable(a, kind);
+  const model::MotorParameters motor = MotorFor(a, kind);
+  const model::BenchConditions bench = BenchFor(a);
+  output::CsvStyle style = StyleFor(a, bench);
   model::SampledLog log;
   try {
-    if (!a.step_spec.empty()) {
-      const auto colon = a.step_spec.find(':');
-      if (colon == std::string::npos) Bad("--step expects FROM:TO volts, e.g. 0:12, got '" + a.step_spec + "'");
-      model::StepPlan plan;
-      plan.supply_before_V = std::stod(a.step_spec.substr(0, colon));
-      plan.supply_after_V = std::stod(a.step_spec.substr(colon + 1));
-      plan.before_s = a.before_s;
-      plan.after_s = a.after_s;
-      plan.sample_period_s = a.sample_period_s.value_or(kStepSamplePeriod_s);
-      style.comment_lines.push_back("simulated locked-rotor step capture (coilspin simulate)");
-      log = model::SimulateLockedRotorStep(a.motor, plan, a.bench);
-    } else {
-      if (a.levels_V.empty()) Bad("give --levels for plateaus or --step FROM:TO for a step capture");
-      model::PlateauPlan plan;
-      plan.supply_levels_V = a.levels_V;
-      plan.hold_s = a.hold_s;
-      plan.sample_period_s = a.sample_period_s.value_or(kPlateauSamplePeriod_s);
-      plan.log_temperature = a.log_temperature;
-      style.comment_lines.push_back("simulated locked-rotor plateaus (coilspin simulate)");
-      log = model::SimulateLockedRotorPlateaus(a.motor, plan, a.bench);
-    }
+    if (kind == Kind::kLockedRotor) log = LockedRotorLog(a, motor, bench, style);
+    if (kind == Kind::kNoLoad) log = NoLoadLog(a, motor, bench, style);
+    if (kind == Kind::kSpinDown) log = SpinDownLog(a, motor, bench, style);
   } catch (const std::invalid_argument& e) {
     Bad(e.what());
   }
+  if (kind != Kind::kLockedRotor) AddShaftNotes(bench, style);
   output::WriteBenchLogCsv(log, a.out_path, style);
   return kSuccess;
 }

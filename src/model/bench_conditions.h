@@ -1,7 +1,9 @@
 #pragma once
 // How a simulated bench differs from an ideal one: supply internal resistance,
-// measurement noise, ADC quantisation, winding heating. Noise levels are
-// standard deviations (σ) of white Gaussian noise added to each logged channel.
+// measurement noise, ADC quantisation, winding heating, and how the shaft is
+// read (an encoder, a gearbox between the motor and the sensor). Noise levels
+// are standard deviations (σ) of white Gaussian noise added to each logged
+// channel; speed and position are logged at the output of the gearbox.
 
 #include <cstdint>
 
@@ -16,6 +18,10 @@ struct BenchConditions {
   double winding_temperature_degC = 25.0;        // at the start of the test
   double heating_per_plateau_K = 0.0;            // winding temperature rise from one plateau to the next
   double resistance_reference_temperature_degC = 25.0;  // the temperature at which R is given
+  double speed_noise_sigma_rad_s = 0.0;  // on the logged speed, at the logged shaft
+  double torque_noise_sigma_N_m = 0.0;   // on the logged torque (load cell)
+  int encoder_counts_per_rev = 0;        // 0 = no encoder: position is logged exactly
+  double gear_ratio = 1.0;               // motor turns per output turn: logged ω_out = ω/N, θ_out = θ/N
   std::uint64_t seed = 1;              // noise is reproducible for a given seed
 };
 

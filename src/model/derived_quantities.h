@@ -1,28 +1,44 @@
 #pragma once
-// Quantities that follow from the fitted parameters (docs/methods.md §6), each
-// with its gradient with respect to the parameters it uses, so that its
-// uncertainty follows from the parameter covariance by the delta method:
-//     Var(g) ≈ ∇gᵀ · Cov · ∇g.
+// Quantities that follow from the fitted parameters at a stated terminal
+// voltage V (docs/methods.md §6). Each is a formula of named parameters; its
+// uncertainty follows from the parameter covariance by the delta method
+// (fitters/joint/derived.h).
+//
+// Steady state, shaft torque on the torque–speed line (friction included when known):
+//   τ(ω) = Kt·(V − Vb − Ke·ω)/R − B·ω − Tc
+//   stall (ω = 0): i = (V − Vb)/R,  τ = Kt·(V − Vb)/R
+//   no-load (τ = 0): ω = (Kt·(V − Vb)/R − Tc)/(Kt·Ke/R + B),  i = (B·ω + Tc)/Kt;
+//                    ideal (frictionless) ω = (V − Vb)/Ke
+//   time constants: τe = L/R,  τm = R·J/(Kt·Ke)
+//   Kv = 1/Ke (quoted in rpm/V),  Km = Kt/√R,  speed–torque gradient R/(Kt·Ke)
+//   maximum output power on the line: a²/(4k), a = Kt(V−Vb)/R − Tc, k = Kt·Ke/R + B
+//   peak efficiency: max over ω of τ(ω)·ω / (V·i(ω)),  i(ω) = (V − Vb − Ke·ω)/R
 
+#include <functional>
+#include <map>
 #include <string>
 #include <vector>
 
 namespace coilspin::model {
 
+using ParameterValues = std::map<std::string, double>;  // key ("resistance", ...) → SI value
+
 struct DerivedFormula {
-  std::string key;                      // "electrical_time_constant"
-  std::string symbol;                   // "tau_e"
-  std::string unit;                     // "s"
-  std::vector<std::string> uses;        // parameter keys, in gradient order
-  double value = 0.0;
-  std::vector<double> gradient;         // ∂g/∂(each of `uses`)
+  std::string key;                      // "stall_torque"
+  std::string symbol;                   // "T_stall"
+  std::string unit;                     // "N*m"
+  std::vector<std::string> uses;        // parameter keys it needs
+  bool at_voltage = false;              // refers to the operating voltage
+  std::function<double(const ParameterValues&)> value;
 };
 
-// τe = L/R [s];  ∂τe/∂L = 1/R,  ∂τe/∂R = −L/R²
-inline DerivedFormula ElectricalTimeConstant(double resistance_ohm, double inductance_H) {
-  return {"electrical_time_constant", "tau_e", "s", {"resistance", "inductance"},
-          inductance_H / resistance_ohm,
-          {-inductance_H / (resistance_ohm * resistance_ohm), 1.0 / resistance_ohm}};
-}
+// The formulas whose parameters are all present in `available` (brush_drop
+// counts as 0 when absent). V is the operating voltage.
+std::vector<DerivedFormula> DerivedFormulas(const ParameterValues& available, double voltage_V);
+
+// Shaft torque τ(ω) at V; friction terms are used when present.
+double ShaftTorque(const ParameterValues& p, double voltage_V, double speed_rad_s);
+// No-load speed at V (with friction when present).
+double NoLoadSpeed(const ParameterValues& p, double voltage_V);
 
 }  // namespace coilspin::model

@@ -2,21 +2,19 @@
 
 #include <cmath>
 #include <cstddef>
-#include <cstdint>
 #include <stdexcept>
 #include <string>
 
+#include "src/model/bench_noise.h"
 #include "src/model/copper_resistance.h"
 #include "src/model/locked_rotor_circuit.h"
-#include "src/model/measurement_noise.h"
+#include "src/model/sample_plan.h"
 
 namespace coilspin::model {
 
 namespace {
 
-// Noise streams of BenchConditions::seed, one per logged channel.
-constexpr std::uint32_t kVoltageNoiseStream = 0;
-constexpr std::uint32_t kCurrentNoiseStream = 1;
+constexpr const char* kSimulation = "locked-rotor simulation";
 
 // What the supply and the winding do over each sample period [t_k, t_k+1).
 struct SupplySchedule {
@@ -25,28 +23,16 @@ struct SupplySchedule {
   std::vector<double> temperature_degC;  // θ
 };
 
-void Require(bool condition, const std::string& what) {
-  if (!condition) throw std::invalid_argument("locked-rotor simulation: " + what);
-}
+void Require(bool condition, const std::string& what) { RequirePlan(condition, kSimulation, what); }
 
 void ValidateBench(const MotorParameters& motor, const BenchConditions& bench,
                    double sample_period_s) {
-  Require(std::isfinite(sample_period_s) && sample_period_s > 0.0, "sample period must be > 0");
+  RequireSamplePeriod(sample_period_s, kSimulation);
   Require(motor.resistance_ohm >= 0.0 && bench.supply_resistance_ohm >= 0.0 &&
               motor.resistance_ohm + bench.supply_resistance_ohm > 0.0,
           "R and R_s must be >= 0 with R + R_s > 0");
   Require(motor.inductance_H >= 0.0, "L must be >= 0");
   Require(motor.brush_drop_V >= 0.0, "Vb must be >= 0");
-}
-
-// Whole samples in a span of time; at least `minimum`.
-std::size_t SamplesIn(double span_s, double sample_period_s, std::size_t minimum,
-                      const std::string& name) {
-  Require(std::isfinite(span_s) && span_s >= 0.0, name + " must be >= 0");
-  const auto samples = static_cast<std::size_t>(std::llround(span_s / sample_period_s));
-  Require(samples >= minimum, name + " must hold at least " + std::to_string(minimum) +
-                                  " sample period(s)");
-  return samples;
 }
 
 void AppendLevel(SupplySchedule& schedule, std::size_t samples, double supply_V,
@@ -66,10 +52,11 @@ LockedRotorCircuit CircuitAt(const MotorParameters& motor, const BenchConditions
 }
 
 // Integrates the schedule from `initial_current_A` and logs t_k = k·Δ,
-// v_k = V_s,k − R_s·i_k and i_k, then adds noise and quantisation.
+// v_k = V_s,k − R_s·i_k and i_k (and τ_k = Kt·i_k when `log_torque`), then adds
+// noise and quantisation.
 SampledLog RunSchedule(const MotorParameters& motor, const BenchConditions& bench,
                        const SupplySchedule& schedule, double sample_period_s,
-                       double initial_current_A) {
+                       double initial_current_A, bool log_torque) {
   const std::size_t samples = schedule.supply_V.size();
   const double sub_step_s = sample_period_s / kSubStepsPerSample;
   SampledLog log;
@@ -86,10 +73,13 @@ SampledLog RunSchedule(const MotorParameters& motor, const BenchConditions& benc
       current_A = AdvanceLockedRotorCurrent(circuit, current_A, schedule.supply_V[k], sub_step_s);
     }
   }
-  MeasurementNoise(bench.seed, kVoltageNoiseStream)
-      .Apply(log.voltage_V, bench.voltage_noise_sigma_V, bench.voltage_lsb_V);
-  MeasurementNoise(bench.seed, kCurrentNoiseStream)
-      .Apply(log.current_A, bench.current_noise_sigma_A, bench.current_lsb_A);
+  if (log_torque) {
+    log.torque_N_m.resize(samples);
+    for (std::size_t k = 0; k < samples; ++k) {
+      log.torque_N_m[k] = motor.torque_constant_N_m_per_A * log.current_A[k];  // τ = Kt·i
+    }
+  }
+  AddBenchNoise(bench, log);
   return log;
 }
 
@@ -99,7 +89,7 @@ SampledLog SimulateLockedRotorPlateaus(const MotorParameters& motor, const Plate
                                        const BenchConditions& bench) {
   ValidateBench(motor, bench, plan.sample_period_s);
   Require(!plan.supply_levels_V.empty(), "the plateau plan has no supply levels");
-  const std::size_t samples_per_level = SamplesIn(plan.hold_s, plan.sample_period_s, 1, "hold_s");
+  const std::size_t samples_per_level = SamplesIn(plan.hold_s, plan.sample_period_s, 1, kSimulation, "hold_s");
   SupplySchedule schedule;
   for (std::size_t level = 0; level < plan.supply_levels_V.size(); ++level) {
     const double temperature_degC =
@@ -109,8 +99,13 @@ SampledLog SimulateLockedRotorPlateaus(const MotorParameters& motor, const Plate
     AppendLevel(schedule, samples_per_level, plan.supply_levels_V[level], resistance_ohm,
                 temperature_degC);
   }
+  if (plan.log_torque) {
+    Require(std::isfinite(motor.torque_constant_N_m_per_A) && motor.torque_constant_N_m_per_A > 0.0,
+            "a torque column needs Kt > 0");
+  }
   constexpr double kAtRest_A = 0.0;
-  SampledLog log = RunSchedule(motor, bench, schedule, plan.sample_period_s, kAtRest_A);
+  SampledLog log =
+      RunSchedule(motor, bench, schedule, plan.sample_period_s, kAtRest_A, plan.log_torque);
   if (plan.log_temperature) log.temperature_degC = schedule.temperature_degC;
   return log;
 }
@@ -118,8 +113,8 @@ SampledLog SimulateLockedRotorPlateaus(const MotorParameters& motor, const Plate
 SampledLog SimulateLockedRotorStep(const MotorParameters& motor, const StepPlan& plan,
                                    const BenchConditions& bench) {
   ValidateBench(motor, bench, plan.sample_period_s);
-  const std::size_t samples_before = SamplesIn(plan.before_s, plan.sample_period_s, 0, "before_s");
-  const std::size_t samples_after = SamplesIn(plan.after_s, plan.sample_period_s, 1, "after_s");
+  const std::size_t samples_before = SamplesIn(plan.before_s, plan.sample_period_s, 0, kSimulation, "before_s");
+  const std::size_t samples_after = SamplesIn(plan.after_s, plan.sample_period_s, 1, kSimulation, "after_s");
   const double temperature_degC = bench.winding_temperature_degC;
   const double resistance_ohm = CopperResistanceAt(
       motor.resistance_ohm, bench.resistance_reference_temperature_degC, temperature_degC);
@@ -128,7 +123,8 @@ SampledLog SimulateLockedRotorStep(const MotorParameters& motor, const StepPlan&
   AppendLevel(schedule, samples_after, plan.supply_after_V, resistance_ohm, temperature_degC);
   const double settled_before_A = SettledLockedRotorCurrent(
       CircuitAt(motor, bench, resistance_ohm), plan.supply_before_V);
-  return RunSchedule(motor, bench, schedule, plan.sample_period_s, settled_before_A);
+  constexpr bool kNoTorque = false;
+  return RunSchedule(motor, bench, schedule, plan.sample_period_s, settled_before_A, kNoTorque);
 }
 
 }  // namespace coilspin::model

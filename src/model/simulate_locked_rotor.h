@@ -23,15 +23,21 @@
 // level); plateau j is held at winding temperature θ_0 + j·heating_per_plateau_K.
 // The step starts from the current settled at supply_before_V, at θ_0.
 //
+// Torque column (plateaus, on request): the shaft is held by a load cell, which
+// reads the torque the armature produces, τ = Kt·i (the rotor does not turn;
+// bearing friction between the armature and the load cell is not modelled).
+// Logged at the sample instants from the exact current, then noise of
+// σ = torque_noise_sigma_N_m is added.
+//
 // Noise. White Gaussian noise of the given σ, then rounding to the ADC step,
-// on the logged v and i (src/model/measurement_noise.h); the voltage and current
-// channels draw from separate streams of BenchConditions::seed. The temperature
-// channel is logged exactly.
+// on the logged v and i (src/model/measurement_noise.h), and noise on τ
+// (src/model/bench_noise.h); each channel draws from its own stream of
+// BenchConditions::seed. The temperature channel is logged exactly.
 //
 // Throws std::invalid_argument for a plan or parameter set that cannot be
 // simulated (Δ ≤ 0, a hold or span shorter than one sample, no levels,
 // R + R_s ≤ 0, L < 0, Vb < 0, negative σ or lsb, a temperature at or below
-// the copper line's zero).
+// the copper line's zero, a torque column with Kt ≤ 0).
 
 #include <vector>
 
@@ -50,6 +56,7 @@ struct PlateauPlan {
   double hold_s = 1.0;                  // time at each level
   double sample_period_s = 1e-3;
   bool log_temperature = false;         // add a temperature [degC] channel
+  bool log_torque = false;              // add a torque [N·m] channel: τ = Kt·i (load cell)
 };
 
 // One fast supply step captured by a scope.

@@ -17,6 +17,8 @@ namespace {
 constexpr int kMinSignificantDigits = 1;
 constexpr int kMaxSignificantDigits = 17;  // enough for every IEEE 754 double
 constexpr std::size_t kNumberBufferSize = 64;
+// Every integer up to 2⁵³ is an exact IEEE 754 double: counts beyond it are not whole numbers.
+constexpr double kLargestExactInteger = 9007199254740992.0;
 
 struct Column {
   units::Quantity quantity;
@@ -31,6 +33,7 @@ std::vector<Column> ColumnsOf(const model::SampledLog& log, const CsvStyle& styl
       {Quantity::kVoltage, &log.voltage_V, &style.voltage_unit},
       {Quantity::kCurrent, &log.current_A, &style.current_unit},
       {Quantity::kSpeed, &log.speed_rad_s, &style.speed_unit},
+      {Quantity::kPosition, &log.position_rad, &style.position_unit},
       {Quantity::kTorque, &log.torque_N_m, &style.torque_unit},
       {Quantity::kTemperature, &log.temperature_degC, &style.temperature_unit},
   };
@@ -46,19 +49,37 @@ bool SetError(std::string* error, const std::string& message) {
   return false;
 }
 
-std::optional<units::Conversion> UsableConversion(units::Quantity quantity,
-                                                  const std::string& unit) {
+// The table's conversion, with counts resolved by the counts per revolution
+// (x_SI = n·2π/cpr); none for an unknown unit or counts without cpr > 0.
+std::optional<units::Conversion> UsableConversion(units::Quantity quantity, const std::string& unit,
+                                                  int counts_per_rev) {
   std::optional<units::Conversion> conversion = units::LookUpUnit(quantity, unit);
-  if (conversion && (conversion->needs_counts_per_rev || conversion->factor == 0.0)) {
-    return std::nullopt;
+  if (conversion && conversion->needs_counts_per_rev) {
+    if (counts_per_rev <= 0) return std::nullopt;
+    conversion->factor /= counts_per_rev;
+    conversion->needs_counts_per_rev = false;
   }
+  if (conversion && conversion->factor == 0.0) return std::nullopt;
   return conversion;
+}
+
+bool IsCounts(units::Quantity quantity, const std::string& unit) {
+  const std::optional<units::Conversion> conversion = units::LookUpUnit(quantity, unit);
+  return conversion && conversion->needs_counts_per_rev;
 }
 
 std::string HeaderCell(const Column& column, const CsvStyle& style) {
   const auto renamed = style.header_for.find(column.quantity);
   if (renamed != style.header_for.end()) return renamed->second;
   return std::string(units::QuantityName(column.quantity)) + " [" + *column.unit + "]";
+}
+
+// An encoder count: the nearest integer, written in full.
+void AppendCount(std::string& out, double count) {
+  if (!(std::abs(count) <= kLargestExactInteger)) {
+    throw std::invalid_argument("bench-log CSV: an encoder count beyond 2^53 is not a whole number");
+  }
+  out += std::to_string(std::llround(count));
 }
 
 void AppendNumber(std::string& out, double value, const CsvStyle& style) {
@@ -107,11 +128,16 @@ bool CsvStyle::IsValid(std::string* error) const {
       {units::Quantity::kVoltage, &voltage_unit},
       {units::Quantity::kCurrent, &current_unit},
       {units::Quantity::kSpeed, &speed_unit},
+      {units::Quantity::kPosition, &position_unit},
       {units::Quantity::kTorque, &torque_unit},
       {units::Quantity::kTemperature, &temperature_unit},
   };
+  if (IsCounts(units::Quantity::kPosition, position_unit) && counts_per_rev <= 0) {
+    return SetError(error, "position in counts needs the encoder's counts per revolution (> 0), not " +
+                               std::to_string(counts_per_rev));
+  }
   for (const auto& [quantity, unit] : unit_choices) {
-    if (!UsableConversion(quantity, *unit)) {
+    if (!UsableConversion(quantity, *unit, counts_per_rev)) {
       std::string accepted;
       for (const std::string& spelling : units::AcceptedUnits(quantity)) {
         accepted += (accepted.empty() ? "" : ", ") + spelling;
@@ -144,8 +170,10 @@ void WriteBenchLogCsv(const model::SampledLog& log, const std::string& path,
   ValidateLog(columns, log);
 
   std::vector<units::Conversion> conversions;
+  std::vector<bool> whole_counts;
   for (const Column& column : columns) {
-    conversions.push_back(*UsableConversion(column.quantity, *column.unit));
+    conversions.push_back(*UsableConversion(column.quantity, *column.unit, style.counts_per_rev));
+    whole_counts.push_back(IsCounts(column.quantity, *column.unit));
   }
 
   std::string text;
@@ -161,7 +189,12 @@ void WriteBenchLogCsv(const model::SampledLog& log, const std::string& path,
       if (c > 0) text.push_back(style.delimiter);
       // x = (x_SI − offset)/factor
       const double value_SI = (*columns[c].values)[row];
-      AppendNumber(text, (value_SI - conversions[c].offset) / conversions[c].factor, style);
+      const double value = (value_SI - conversions[c].offset) / conversions[c].factor;
+      if (whole_counts[c]) {
+        AppendCount(text, value);
+      } else {
+        AppendNumber(text, value, style);
+      }
     }
     text.push_back('\n');
   }

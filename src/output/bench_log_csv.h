@@ -4,12 +4,17 @@
 // "quantity [unit]" cells, then one row per sample).
 //
 // Only the channels the log has (non-empty) are written, in the order time,
-// voltage, current, speed, torque, temperature. Values are converted from SI
-// to the chosen units with the factors of the one unit table
+// voltage, current, speed, position, torque, temperature. Values are converted
+// from SI to the chosen units with the factors of the one unit table
 // (units::LookUpUnit: x_SI = x·factor + offset, so x = (x_SI − offset)/factor)
 // and printed with `significant_digits` significant digits in the C locale
 // (std::to_chars, "%g" style); 10 digits keep a relative error below 5e-11,
 // 17 reproduce every double exactly.
+//
+// Position in counts: the table's factor is 2π rad per revolution, divided by
+// the encoder's counts per revolution (counts_per_rev, required then), so
+// n = θ·cpr/2π. An encoder count is a whole number: it is written as the
+// nearest integer, in full (no exponent, whatever significant_digits says).
 //
 // The file is written atomically (src/output/atomic_file.h: a temporary file
 // in the same folder, flushed, then renamed over `path`), so a failure leaves
@@ -30,7 +35,9 @@ struct CsvStyle {
   std::string time_unit = "s";
   std::string voltage_unit = "V";
   std::string current_unit = "A";
-  std::string speed_unit = "rad/s";
+  std::string speed_unit = "rad/s";       // rad/s | rpm | rev/s
+  std::string position_unit = "rad";     // rad | deg | rev | counts
+  int counts_per_rev = 0;                // encoder counts per revolution, needed for counts
   std::string torque_unit = "N*m";
   std::string temperature_unit = "degC";
   char delimiter = ',';                 // ',', ';' or '\t'
@@ -41,9 +48,10 @@ struct CsvStyle {
   // Lines written before the header, each as "# " + line.
   std::vector<std::string> comment_lines;
 
-  // False, with the reason in *error, for an unknown unit, a delimiter other than
-  // ',' ';' '\t', a decimal comma without ';', digits outside 1 … 17, or a header
-  // cell or comment that holds a line break (or, for a header, the delimiter).
+  // False, with the reason in *error, for an unknown unit, position in counts
+  // without counts_per_rev > 0, a delimiter other than ',' ';' '\t', a decimal
+  // comma without ';', digits outside 1 … 17, or a header cell or comment that
+  // holds a line break (or, for a header, the delimiter).
   bool IsValid(std::string* error) const;
 };
 
