@@ -1,14 +1,36 @@
 #include "fitters/joint/motor_fit.h"
 
 #include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <deque>
 
+#include "fitters/core/estimate_from_fit.h"
+#include "fitters/core/shared_parameters.h"
+#include "fitters/joint/consistency.h"
 #include "fitters/joint/derived.h"
+#include "fitters/no_load/no_load_fit.h"
+#include "fitters/spin_down/spin_down_fit.h"
+#include "src/ingest/encoder_speed.h"
+#include "src/units/constants.h"
 
 namespace coilspin::joint {
 namespace {
 
+constexpr int kGroupSigmaRounds = 3;
+constexpr int kTorqueSpeedPoints = 11;
+const char* const kTiedBasis = "equal-to-Ke";
+
+std::string Format(const char* format, double value) {
+  char buffer[64];
+  std::snprintf(buffer, sizeof buffer, format, value);
+  return buffer;
+}
+
 bool Has(const MotorEstimate& e, const std::string& key) {
   if (e.Find(key)) return true;
+  for (const auto& q : e.ratios)
+    if (q.key == key) return true;
   return std::any_of(e.not_identified.begin(), e.not_identified.end(),
                      [&](const auto& entry) { return entry.first == key; });
 }
@@ -16,17 +38,48 @@ bool Has(const MotorEstimate& e, const std::string& key) {
 // Why a model parameter is undetermined when no test of the set informs it.
 void AddMissingReasons(MotorEstimate* e) {
   const std::pair<const char*, const char*> reasons[] = {
-      {"resistance", "needs a locked-rotor test"},
+      {"resistance", "needs a locked-rotor or no-load test"},
       {"inductance", "needs a locked-rotor step capture"},
+      {"back_emf_constant", "needs a no-load test, or a spin-down with the terminal voltage logged"},
+      {"torque_constant", "needs a torque column in a locked-rotor log, or a back-EMF measurement to assume Kt = Ke"},
+      {"inertia", "needs a spin-down test together with a no-load test (or --known-inertia)"},
+      {"viscous_friction", "needs a no-load test, or a spin-down with --known-inertia"},
+      {"coulomb_friction", "needs a no-load test, or a spin-down with --known-inertia"},
       {"brush_drop", "needs locked-rotor plateaus at 2 or more current levels"},
-      {"back_emf_constant", "needs a no-load, spin-down (with terminal voltage) or step test"},
-      {"torque_constant", "needs a torque column, or a back-EMF measurement to assume Kt = Ke"},
-      {"inertia", "needs a spin-down or step test"},
-      {"viscous_friction", "needs a no-load or spin-down test"},
-      {"coulomb_friction", "needs a no-load or spin-down test"},
   };
   for (const auto& [key, reason] : reasons)
     if (!Has(*e, key)) e->not_identified.push_back({key, reason});
+}
+
+struct ParameterInfo {
+  const char* key;
+  const char* symbol;
+  const char* unit;
+};
+const ParameterInfo kPhysical[] = {
+    {"resistance", "R", "ohm"},           {"inductance", "L", "H"},
+    {"back_emf_constant", "Ke", "V*s/rad"}, {"torque_constant", "Kt", "N*m/A"},
+    {"inertia", "J", "kg*m^2"},           {"viscous_friction", "B", "N*m*s/rad"},
+    {"coulomb_friction", "Tc", "N*m"},    {"brush_drop", "Vb", "V"},
+};
+
+// The highest settled supply level of the plateau logs: the default operating voltage.
+double HighestLevel(const locked_rotor::LockedRotorPlan& lr, const no_load::NoLoadPlan& nl) {
+  double level_V = 0.0;
+  for (const auto& pl : lr.plateau_logs)
+    for (const auto& p : pl.plateaus) level_V = std::max(level_V, std::fabs(p.mean_voltage_V));
+  for (const auto& l : nl.logs)
+    for (const auto& p : l.plateaus) level_V = std::max(level_V, std::fabs(p.mean_voltage_V));
+  return level_V;
+}
+
+// A free shaft settles with the mechanical time constant, far slower than the
+// current of a locked rotor: half of each no-load level is dropped as transient.
+constexpr double kNoLoadSettleFraction = 0.5;
+
+PlateauOptions NoLoadPlateauOptions(PlateauOptions options) {
+  options.settle_fraction = std::max(options.settle_fraction, kNoLoadSettleFraction);
+  return options;
 }
 
 }  // namespace
@@ -36,33 +89,176 @@ bool MotorFitOptions::IsValid(std::string* error) const {
     *error = "confidence must lie between 0 and 1 (exclusive)";
     return false;
   }
+  if (known_inertia_kg_m2 && !(*known_inertia_kg_m2 > 0.0)) {
+    *error = "--known-inertia must be positive";
+    return false;
+  }
+  if (at_voltage_V && !(*at_voltage_V > 0.0)) {
+    *error = "--at-voltage must be positive";
+    return false;
+  }
   return locked_rotor.IsValid(error);
 }
 
-bool IsSupported(TestKind kind) { return kind == TestKind::kLockedRotor; }
+bool IsSupported(TestKind kind) { return kind != TestKind::kStep; }
 
 MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions& options) {
-  std::vector<const BenchLog*> locked;
-  for (const auto& t : tests)
-    if (t.kind == TestKind::kLockedRotor) locked.push_back(&t.log);
   MotorEstimate e;
-  if (!locked.empty()) {
-    locked_rotor::LockedRotorOptions lr = options.locked_rotor;
-    lr.confidence = options.confidence;
-    e = locked_rotor::FitLockedRotor(locked, lr);
-  }
   e.motor_label = options.motor_label;
   e.confidence = options.confidence;
-  AddMissingReasons(&e);
-  const QuantityEstimate* r = e.Find("resistance");
-  const QuantityEstimate* l = e.Find("inductance");
-  if (r && l) {
-    if (auto q = DeriveWithInterval(model::ElectricalTimeConstant(r->value, l->value), e)) e.derived.push_back(*q);
+  std::vector<const BenchLog*> locked, free_plateaus, coasts;
+  for (const auto& t : tests) {
+    if (t.kind == TestKind::kLockedRotor) locked.push_back(&t.log);
+    if (t.kind == TestKind::kNoLoad) free_plateaus.push_back(&t.log);
+    if (t.kind == TestKind::kSpinDown) coasts.push_back(&t.log);
   }
-  Consistency c;
-  c.verdict = "not-checked";
-  c.note = "needs Kt and Ke from independent evidence (a torque column and a back-EMF measurement)";
-  e.consistency = c;
+
+  // Speed of no-load logs: the logged column, or derived from encoder position.
+  std::deque<std::vector<double>> derived_speeds;
+  std::vector<no_load::SpeedTrace> speeds;
+  for (const BenchLog* log : free_plateaus) {
+    if (!log->speed_rad_s.empty()) {
+      speeds.push_back({&log->speed_rad_s, "logged speed column"});
+    } else {
+      SpeedFromPositionOptions differentiation;  // counts per motor revolution: CPR / gear ratio
+      if (options.counts_per_rev) differentiation.counts_per_rev = *options.counts_per_rev / options.gear_ratio;
+      DerivedSpeed d = SpeedFromPosition(log->time_s, log->position_rad, differentiation);
+      derived_speeds.push_back(std::move(d.speed_rad_s));
+      speeds.push_back({&derived_speeds.back(), d.method});
+    }
+  }
+
+  // 1. Each test plans what it can determine.
+  locked_rotor::LockedRotorOptions lr_options = options.locked_rotor;
+  lr_options.confidence = options.confidence;
+  locked_rotor::LockedRotorPlan lr;
+  if (!locked.empty()) lr = locked_rotor::PlanLockedRotor(locked, lr_options, &e);
+  no_load::NoLoadPlan nl;
+  if (!free_plateaus.empty())
+    nl = no_load::PlanNoLoad(free_plateaus, speeds,
+                             lr.resistance_identified ? std::optional<double>(lr.resistance_start_ohm) : std::nullopt,
+                             lr.brush_drop_start_V, NoLoadPlateauOptions(lr_options.plateaus), &e);
+  spin_down::SpinDownPlan sd;
+  if (!coasts.empty()) {
+    std::optional<double> step_rad;
+    if (options.counts_per_rev) step_rad = units::kRadiansPerRevolution * options.gear_ratio / *options.counts_per_rev;
+    sd = spin_down::PlanSpinDown(coasts, step_rad, &e);
+  }
+
+  // 2. The mechanical basis.
+  const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf;
+  const bool kt_measured = lr.measures_torque_constant;
+  const std::string kt_name = kt_measured ? "torque_constant" : "back_emf_constant";
+  const bool friction_from_no_load = nl.friction_identified;
+  const bool inertia_known = options.known_inertia_kg_m2.has_value();
+  const spin_down::Mechanics mechanics = (friction_from_no_load || inertia_known) ? spin_down::Mechanics::kAbsolute
+                                                                                  : spin_down::Mechanics::kRatios;
+  double inertia_start = options.known_inertia_kg_m2.value_or(0.0);
+  if (!inertia_known && sd.usable && friction_from_no_load) {
+    inertia_start = (nl.coulomb_start > 0.0 && sd.coulomb_over_inertia_start > 0.0)
+                        ? nl.coulomb_start / sd.coulomb_over_inertia_start
+                        : nl.viscous_start / sd.viscous_over_inertia_start;
+  }
+
+  // 3. One problem.
+  core::LeastSquaresProblem problem;
+  core::SharedParameters parameters(&problem);
+  locked_rotor::AddLockedRotor(&lr, &parameters);
+  no_load::AddNoLoad(&nl, kt_name, &parameters);
+  if (sd.usable && mechanics == spin_down::Mechanics::kAbsolute && !(inertia_start > 0.0)) sd.usable = false;
+  spin_down::AddSpinDown(&sd, mechanics, inertia_start, inertia_known, &parameters);
+  const bool anything = lr.resistance_identified || nl.back_emf_identified || sd.usable;
+  if (!anything) {
+    AddMissingReasons(&e);
+    return e;
+  }
+  core::SolveOptions solve;
+  solve.confidence = options.confidence;
+  solve.estimate_group_sigmas = true;
+  solve.group_sigma_rounds = kGroupSigmaRounds;
+  const core::FitResult fit = problem.Solve(solve);
+  e.solver.push_back(core::ToSolverSummary(fit));
+
+  // 4. Each test reports its residuals (and the locked-rotor test its own notes).
+  if (lr.resistance_identified) locked_rotor::ReportLockedRotor(lr, fit, &e);
+  no_load::ReportNoLoad(nl, fit, &e);
+  spin_down::ReportSpinDown(sd, fit, &e);
+  if (!fit.usable) {
+    std::string involved;
+    for (const auto& direction : fit.not_identifiable)
+      for (const auto& name : direction) involved += (involved.empty() ? "" : ", ") + name;
+    e.warnings.push_back("the joint fit has no usable covariance: " + fit.message +
+                         (involved.empty() ? "" : " (parameters involved: " + involved + ")"));
+    AddMissingReasons(&e);
+    return e;
+  }
+
+  // 5. Parameters, each with every test that informed it.
+  std::vector<std::string> covariance_names;
+  for (const auto& info : kPhysical) {
+    const int index = parameters.Index(info.key);
+    if (index < 0 || fit.parameters[index].fixed) continue;
+    covariance_names.push_back(info.key);
+    QuantityEstimate* existing = nullptr;
+    for (auto& q : e.parameters)
+      if (q.key == info.key) existing = &q;
+    if (existing) {
+      existing->tests = parameters.TestsFor(info.key);
+      continue;
+    }
+    e.parameters.push_back(core::ToQuantity(fit, info.key, info.symbol, info.unit, parameters.TestsFor(info.key)));
+  }
+  if (inertia_known && parameters.Has("inertia")) {
+    QuantityEstimate j = core::ToQuantity(fit, "inertia", "J", "kg*m^2", {});
+    j.basis = "given";
+    j.note = "given with --known-inertia, not estimated";
+    e.parameters.push_back(j);
+  }
+  if (!kt_measured && parameters.Has("back_emf_constant") && (friction_from_no_load || has_back_emf)) {
+    QuantityEstimate kt = core::ToQuantity(fit, "back_emf_constant", "Kt", "N*m/A", parameters.TestsFor("back_emf_constant"));
+    kt.key = "torque_constant";
+    kt.basis = kTiedBasis;
+    kt.note = "assumed equal to Ke in SI units (no torque column was logged): not measured";
+    e.parameters.push_back(kt);
+  }
+  core::CopyCovariance(fit, covariance_names, &e);
+
+  // 6. Ratios the coast determines on its own.
+  if (sd.usable) {
+    if (mechanics == spin_down::Mechanics::kRatios) {
+      e.ratios.push_back(core::ToQuantity(fit, "viscous_over_inertia", "B/J", "1/s", {"spin-down"}));
+      e.ratios.push_back(core::ToQuantity(fit, "coulomb_over_inertia", "Tc/J", "rad/s^2", {"spin-down"}));
+      const char* reason = "a spin-down alone fixes only B/J and Tc/J; absolute values need a no-load test "
+                           "(Kt-scaled friction) or --known-inertia";
+      for (const char* key : {"inertia", "viscous_friction", "coulomb_friction"})
+        if (!e.Find(key)) e.not_identified.push_back({key, reason});
+    } else {
+      const model::DerivedFormula ratios[] = {
+          {"viscous_over_inertia", "B/J", "1/s", {"viscous_friction", "inertia"}, false,
+           [](const model::ParameterValues& p) { return p.at("viscous_friction") / p.at("inertia"); }},
+          {"coulomb_over_inertia", "Tc/J", "rad/s^2", {"coulomb_friction", "inertia"}, false,
+           [](const model::ParameterValues& p) { return p.at("coulomb_friction") / p.at("inertia"); }}};
+      for (const auto& f : ratios)
+        if (auto q = DeriveWithInterval(f, e, 0.0)) e.ratios.push_back(*q);
+    }
+  } else if (!coasts.empty()) {
+    e.not_identified.push_back({"viscous_over_inertia", "no usable coast in the spin-down logs"});
+  }
+  AddMissingReasons(&e);
+
+  // 7. Derived quantities at the operating voltage, and the torque–speed line.
+  const double at_voltage_V = options.at_voltage_V.value_or(HighestLevel(lr, nl));
+  for (const auto& formula : model::DerivedFormulas(ValuesOf(e), at_voltage_V)) {
+    if (formula.at_voltage && !(at_voltage_V > 0.0)) continue;
+    if (auto q = DeriveWithInterval(formula, e, at_voltage_V)) e.derived.push_back(*q);
+  }
+  if (at_voltage_V > 0.0) e.torque_speed = TorqueSpeed(e, at_voltage_V, kTorqueSpeedPoints);
+
+  // 8. Kt/Ke consistency and the notes the result must carry.
+  e.consistency = CheckConsistency(e, kt_measured, options.consistency_tolerance);
+  if (options.gear_ratio != 1.0 && (!free_plateaus.empty() || !coasts.empty()))
+    e.warnings.push_back("speed was read through a gearbox (ratio " + Format("%g", options.gear_ratio) +
+                         "): speeds refer to the motor shaft, and J, B, Tc describe motor and gearbox together");
   return e;
 }
 

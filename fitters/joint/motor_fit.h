@@ -1,12 +1,24 @@
 #pragma once
-// One motor, all its bench tests: runs the fitter of each test kind present,
-// gathers their parameters into one MotorEstimate, says for every model
-// parameter that no test determined which test would, and adds the derived
-// quantities that the estimated parameters support.
+// One motor, all its bench tests, one least-squares problem.
 //
-// Test kinds whose fitter is not built yet are rejected by the caller before
-// this point (the CLI says "not yet supported").
+// Every test adds its residual groups to a shared problem, asking for the
+// parameters it informs by name, so R from a locked-rotor log and R in a
+// no-load log are one R, and Ke from no-load plateaus and from a spin-down's
+// back-EMF are one Ke. The noise of each group is estimated from the data.
+//
+// The mechanical basis is decided from what the tests can determine
+// (docs/methods.md §2):
+// - Kt is measured when a locked-rotor torque column is logged; otherwise it is
+//   taken equal to Ke in SI units (the same parameter plays both roles) and
+//   the result says so ("basis": "equal-to-Ke").
+// - B and Tc are absolute when no-load plateaus give Kt-scaled friction (or
+//   the inertia is known); J then follows from the spin-down's B/J and Tc/J.
+// - A spin-down alone fixes only the ratios B/J and Tc/J.
+// Derived quantities and the torque–speed line follow at the operating
+// voltage; Kt/Ke consistency is checked when Kt and Ke come from independent
+// evidence.
 
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -14,6 +26,7 @@
 #include "fitters/locked_rotor/locked_rotor_fit.h"
 #include "src/ingest/bench_log.h"
 #include "src/ingest/test_kind.h"
+#include "src/units/constants.h"
 
 namespace coilspin::joint {
 
@@ -26,6 +39,11 @@ struct MotorFitOptions {
   std::string motor_label;
   double confidence = 0.95;
   locked_rotor::LockedRotorOptions locked_rotor;
+  std::optional<double> known_inertia_kg_m2;
+  std::optional<double> at_voltage_V;        // operating voltage of the derived quantities
+  std::optional<double> counts_per_rev;      // encoder, for the quantisation of position logs
+  double gear_ratio = 1.0;
+  double consistency_tolerance = units::kDefaultKtKeTolerance;  // |Kt/Ke − 1| allowed
 
   bool IsValid(std::string* error) const;
 };

@@ -58,6 +58,9 @@ std::vector<LockedPlateau> FindLockedPlateaus(const BenchLog& log, const Plateau
   std::vector<const std::vector<double>*> channels = {&log.voltage_V, &log.current_A, &log.time_s};
   const bool has_temperature = !log.temperature_degC.empty();
   if (has_temperature) channels.push_back(&log.temperature_degC);
+  const bool has_torque = !log.torque_N_m.empty();
+  const std::size_t torque_channel = channels.size();
+  if (has_torque) channels.push_back(&log.torque_N_m);
   const double current_noise_A = NoiseFromDifferences(log.current_A);
   std::vector<LockedPlateau> result;
   for (const auto& plateau : FindPlateaus(log.voltage_V, channels, options)) {
@@ -69,6 +72,11 @@ std::vector<LockedPlateau> FindLockedPlateaus(const BenchLog& log, const Plateau
     p.mid_time_s = plateau.channels[2].mean;
     p.has_temperature = has_temperature;
     if (has_temperature) p.temperature_degC = plateau.channels[3].mean;
+    p.has_torque = has_torque;
+    if (has_torque) {
+      p.mean_torque_N_m = plateau.channels[torque_channel].mean;
+      p.torque_std_N_m = plateau.channels[torque_channel].std_dev;
+    }
     p.samples = plateau.size();
     const double noise_A = std::max(current_noise_A, p.current_std_A);
     if (std::fabs(p.mean_current_A) > kNonZeroCurrentSigmas * noise_A) result.push_back(p);

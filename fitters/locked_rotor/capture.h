@@ -41,6 +41,9 @@ struct LockedPlateau {
   double mid_time_s = 0.0;
   double temperature_degC = 0.0;    // mean logged temperature, when logged
   bool has_temperature = false;
+  double mean_torque_N_m = 0.0;     // mean logged torque (load cell), when logged
+  double torque_std_N_m = 0.0;
+  bool has_torque = false;
   std::size_t samples = 0;
 };
 

@@ -7,6 +7,7 @@
 
 #include "fitters/core/estimate_from_fit.h"
 #include "fitters/core/least_squares.h"
+#include "fitters/locked_rotor/torque_residual.h"
 #include "fitters/locked_rotor/capture.h"
 #include "fitters/locked_rotor/heating_drift.h"
 #include "fitters/locked_rotor/initial_estimates.h"
@@ -26,25 +27,14 @@ constexpr double kMinResistance_ohm = 1e-9;
 constexpr double kMinInductance_H = 1e-12;
 // Rounds of noise re-estimation between logs (enough for the σ ratio to settle).
 constexpr int kGroupSigmaRounds = 3;
+// Kt from a torque column needs this many plateaus (two unknowns, Kt and τ0, and one degree of freedom).
+constexpr std::size_t kMinTorquePlateaus = 3;
 
 std::string Format(const char* format, double value) {
   char buffer[64];
   std::snprintf(buffer, sizeof buffer, format, value);
   return buffer;
 }
-
-struct PlateauLog {
-  const BenchLog* log;
-  std::vector<LockedPlateau> plateaus;
-  std::vector<double> factors;  // f_j
-};
-
-struct StepLog {
-  const BenchLog* log;
-  CaptureClassification classification;
-  double factor = 1.0;
-  double current_noise_A = 0.0;
-};
 
 // Distinct current magnitudes among the plateaus of all logs.
 int DistinctCurrentLevels(const std::vector<PlateauLog>& logs) {
@@ -88,21 +78,28 @@ bool LockedRotorOptions::IsValid(std::string* error) const {
   return true;
 }
 
-MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const LockedRotorOptions& options) {
-  MotorEstimate estimate;
-  estimate.confidence = options.confidence;
+LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const LockedRotorOptions& options,
+                                MotorEstimate* estimate) {
+  LockedRotorPlan plan;
 
   // 1. Sort the logs into plateau logs and step captures.
-  std::vector<PlateauLog> plateau_logs;
-  std::vector<StepLog> step_logs;
   for (const BenchLog* log : logs) {
     const CaptureClassification c = ClassifyCapture(*log);
     if (c.kind == CaptureKind::kStep) {
-      step_logs.push_back({log, c, 1.0, NoiseFromDifferences(log->current_A)});
+      StepLog sl;
+      sl.log = log;
+      sl.classification = c;
+      sl.current_noise_A = NoiseFromDifferences(log->current_A);
+      plan.step_logs.push_back(sl);
     } else {
-      plateau_logs.push_back({log, FindLockedPlateaus(*log, options.plateaus), {}});
+      PlateauLog pl;
+      pl.log = log;
+      pl.plateaus = FindLockedPlateaus(*log, options.plateaus);
+      plan.plateau_logs.push_back(pl);
     }
   }
+  auto& plateau_logs = plan.plateau_logs;
+  auto& step_logs = plan.step_logs;
 
   // 2. Temperatures: θ_ref is the requested reference, else the mean test temperature.
   std::vector<double> known_temperatures;
@@ -112,17 +109,18 @@ MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const Loc
   for (const auto& sl : step_logs)
     if (auto t = LogTemperature(*sl.log, options)) known_temperatures.push_back(*t);
   if (options.winding_temperature_degC) known_temperatures.push_back(*options.winding_temperature_degC);
-  std::optional<double> reference_degC;
   if (!known_temperatures.empty()) {
-    reference_degC = options.reference_temperature_degC
-                         ? *options.reference_temperature_degC
-                         : std::accumulate(known_temperatures.begin(), known_temperatures.end(), 0.0) /
-                               static_cast<double>(known_temperatures.size());
+    plan.reference_degC = options.reference_temperature_degC
+                              ? *options.reference_temperature_degC
+                              : std::accumulate(known_temperatures.begin(), known_temperatures.end(), 0.0) /
+                                    static_cast<double>(known_temperatures.size());
+    plan.reference_requested = options.reference_temperature_degC.has_value();
   } else if (options.reference_temperature_degC) {
-    estimate.warnings.push_back(
+    estimate->warnings.push_back(
         "resistance not corrected to " + Format("%g", *options.reference_temperature_degC) +
         " degC: the winding temperature is unknown (give --winding-temperature or log a temperature column)");
   }
+  const std::optional<double> reference_degC = plan.reference_degC;
   auto factor_at = [&](std::optional<double> theta_degC) {
     if (!reference_degC || !theta_degC) return 1.0;
     return model::CopperResistanceAt(1.0, *reference_degC, *theta_degC);  // f = (k + θ)/(k + θ_ref)
@@ -139,8 +137,8 @@ MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const Loc
     for (const auto& sl : step_logs)
       if (!LogTemperature(*sl.log, options)) without_temperature.push_back(sl.log);
     for (const BenchLog* log : without_temperature)
-      estimate.warnings.push_back(log->path + ": no winding temperature (no temperature column, no "
-                                  "--winding-temperature); taken as " + Format("%g", *reference_degC) + " degC");
+      estimate->warnings.push_back(log->path + ": no winding temperature (no temperature column, no "
+                                   "--winding-temperature); taken as " + Format("%g", *reference_degC) + " degC");
   }
 
   // 3. What the data can determine.
@@ -149,33 +147,49 @@ MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const Loc
   // Settled levels inside step captures count too: the sample-by-sample model
   // holds Vb·sgn(i) on every one of them (they are counted, not fitted twice).
   std::vector<PlateauLog> level_sources = plateau_logs;
-  std::size_t level_count = plateau_count;
+  plan.level_count = plateau_count;
   for (const auto& sl : step_logs) {
-    level_sources.push_back({sl.log, FindLockedPlateaus(*sl.log, options.plateaus), {}});
-    level_count += level_sources.back().plateaus.size();
+    PlateauLog levels;
+    levels.log = sl.log;
+    levels.plateaus = FindLockedPlateaus(*sl.log, options.plateaus);
+    plan.level_count += levels.plateaus.size();
+    level_sources.push_back(levels);
   }
-  const int current_levels = DistinctCurrentLevels(level_sources);
-  const bool estimate_brush_drop = level_count >= 3 && current_levels >= 2;
-  const bool resistance_identified = !step_logs.empty() || plateau_count >= (estimate_brush_drop ? 3u : 2u);
+  plan.current_levels = DistinctCurrentLevels(level_sources);
+  plan.estimate_brush_drop = plan.level_count >= 3 && plan.current_levels >= 2;
+  plan.resistance_identified = !step_logs.empty() || plateau_count >= (plan.estimate_brush_drop ? 3u : 2u);
   for (const auto& pl : plateau_logs) {
-    TestSummary summary{kTest, pl.log->path, static_cast<long>(pl.log->size()),
-                        "plateaus: " + std::to_string(pl.plateaus.size()) + " settled levels with current", {}, {}};
-    estimate.tests.push_back(summary);
+    std::size_t torque_plateaus = 0;
+    for (const auto& p : pl.plateaus) torque_plateaus += p.has_torque ? 1 : 0;
+    if (torque_plateaus >= kMinTorquePlateaus) plan.measures_torque_constant = true;
+  }
+  for (const auto& pl : plateau_logs) {
+    plan.summary_index.push_back(estimate->tests.size());
+    estimate->tests.push_back({kTest, pl.log->path, static_cast<long>(pl.log->size()),
+                               "plateaus: " + std::to_string(pl.plateaus.size()) + " settled levels with current" +
+                                   (pl.plateaus.empty() || !pl.plateaus.front().has_torque ? "" : ", torque logged"),
+                               {}, {}});
+    if (pl.plateaus.empty()) {
+      const std::string text = pl.log->path + ": no settled plateau with current was found";
+      estimate->tests.back().warnings.push_back(text);
+      estimate->warnings.push_back(text);
+    }
   }
   for (const auto& sl : step_logs) {
-    TestSummary summary{kTest, sl.log->path, static_cast<long>(sl.log->size()),
-                        "step capture: current rise resolved by " + Format("%.0f", sl.classification.rise_samples) +
-                            " samples per time constant; fitted sample by sample with the logged voltage as input",
-                        {}, {}};
-    estimate.tests.push_back(summary);
+    plan.summary_index.push_back(estimate->tests.size());
+    estimate->tests.push_back(
+        {kTest, sl.log->path, static_cast<long>(sl.log->size()),
+         "step capture: current rise resolved by " + Format("%.0f", sl.classification.rise_samples) +
+             " samples per time constant; fitted sample by sample with the logged voltage as input",
+         {}, {}});
   }
-  if (!resistance_identified) {
-    estimate.not_identified.push_back(
+  if (!plan.resistance_identified) {
+    estimate->not_identified.push_back(
         {"resistance", "needs at least 2 settled locked-rotor plateaus with current, or a step capture; found " +
                            std::to_string(plateau_count)});
-    estimate.not_identified.push_back({"inductance", "needs a locked-rotor step capture"});
-    estimate.not_identified.push_back({"brush_drop", "needs locked-rotor plateaus at 2 or more current levels"});
-    return estimate;
+    estimate->not_identified.push_back({"inductance", "needs a locked-rotor step capture"});
+    estimate->not_identified.push_back({"brush_drop", "needs locked-rotor plateaus at 2 or more current levels"});
+    return plan;
   }
 
   // 4. Starting point: closed form.
@@ -185,135 +199,172 @@ MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const Loc
     all_plateaus.insert(all_plateaus.end(), pl.plateaus.begin(), pl.plateaus.end());
     all_factors.insert(all_factors.end(), pl.factors.begin(), pl.factors.end());
   }
-  std::optional<PlateauLine> line = FitPlateauLine(all_plateaus, all_factors, estimate_brush_drop);
-  const double brush_drop_start_V = line ? std::max(0.0, line->brush_drop_V) : 0.0;
-  std::vector<StepStart> step_starts;
-  for (const auto& sl : step_logs) {
-    auto start = EstimateStepStart(*sl.log, brush_drop_start_V,
+  const std::optional<PlateauLine> line = FitPlateauLine(all_plateaus, all_factors, plan.estimate_brush_drop);
+  plan.brush_drop_start_V = line ? std::max(0.0, line->brush_drop_V) : 0.0;
+  for (auto& sl : step_logs) {
+    auto start = EstimateStepStart(*sl.log, plan.brush_drop_start_V,
                                    line ? std::optional<double>(line->resistance_ohm * sl.factor) : std::nullopt);
     if (!start) {
-      estimate.not_identified.push_back({"inductance", "the step capture " + sl.log->path +
-                                                           " gives no usable current rise (no starting estimate)"});
-      return estimate;
+      plan.resistance_identified = false;
+      estimate->not_identified.push_back({"resistance", "the step capture " + sl.log->path +
+                                                            " gives no usable current rise (no starting estimate)"});
+      estimate->not_identified.push_back({"inductance", "the step capture " + sl.log->path +
+                                                            " gives no usable current rise (no starting estimate)"});
+      return plan;
     }
-    step_starts.push_back(*start);
+    sl.initial_current_A = start->initial_current_A;
+    sl.inductance_start_H = start->inductance_H;
+    if (!line && &sl == &step_logs.front()) plan.resistance_start_ohm = start->resistance_ohm / sl.factor;
   }
-  const double resistance_start_ohm = line ? line->resistance_ohm : step_starts.front().resistance_ohm / step_logs.front().factor;
-
-  // 5. One problem, R and Vb shared by every log.
-  core::LeastSquaresProblem problem;
-  const int r = problem.AddParameter({"resistance", resistance_start_ohm, 0.0, kMinResistance_ohm, {}, false});
-  // Vb's scale is R·|i| of a typical plateau, since Vb may start at 0.
+  if (line) plan.resistance_start_ohm = line->resistance_ohm;
+  // Vb's scale is R·|i| of a typical level, since Vb may start at 0.
   double typical_current_A = 0.0;
-  for (const auto& p : all_plateaus) typical_current_A = std::max(typical_current_A, std::fabs(p.mean_current_A));
-  const double brush_drop_scale_V = std::max(brush_drop_start_V, resistance_start_ohm * typical_current_A);
-  const int vb = problem.AddParameter({"brush_drop", estimate_brush_drop ? brush_drop_start_V : 0.0,
-                                       brush_drop_scale_V > 0.0 ? brush_drop_scale_V : 1.0, 0.0, {},
-                                       !estimate_brush_drop});
-  int l = -1;
-  if (!step_logs.empty()) {
-    double inductance_start_H = 0.0;
-    for (const auto& s : step_starts) inductance_start_H += s.inductance_H / static_cast<double>(step_starts.size());
-    l = problem.AddParameter({"inductance", inductance_start_H, 0.0, kMinInductance_H, {}, false});
+  for (const auto& pl : level_sources)
+    for (const auto& p : pl.plateaus) typical_current_A = std::max(typical_current_A, std::fabs(p.mean_current_A));
+  const double scale_V = std::max(plan.brush_drop_start_V, plan.resistance_start_ohm * typical_current_A);
+  plan.brush_drop_scale_V = scale_V > 0.0 ? scale_V : 1.0;
+  if (plan.measures_torque_constant) {
+    double sum_ti = 0.0, sum_ii = 0.0;  // Kt ≈ Σ τ̄·ī / Σ ī² (through the origin, as a start)
+    for (const auto& p : all_plateaus)
+      if (p.has_torque) {
+        sum_ti += p.mean_torque_N_m * p.mean_current_A;
+        sum_ii += p.mean_current_A * p.mean_current_A;
+      }
+    plan.torque_constant_start = sum_ii > 0.0 ? sum_ti / sum_ii : 0.0;
   }
-  std::vector<int> groups;
-  for (const auto& pl : plateau_logs) {
-    if (pl.plateaus.empty()) {
-      groups.push_back(-1);
-      continue;
-    }
+  return plan;
+}
+
+void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
+  if (!plan->resistance_identified) return;
+  core::LeastSquaresProblem& problem = parameters->problem();
+  const int r = parameters->Ensure({"resistance", plan->resistance_start_ohm, 0.0, kMinResistance_ohm, {}, false});
+  const int vb = parameters->Ensure({"brush_drop", plan->estimate_brush_drop ? plan->brush_drop_start_V : 0.0,
+                                     plan->brush_drop_scale_V, 0.0, {}, !plan->estimate_brush_drop});
+  parameters->Use("resistance", kTest);
+  if (plan->estimate_brush_drop) parameters->Use("brush_drop", kTest);
+  if (plan->measures_torque_constant) parameters->Use("torque_constant", kTest);
+  int l = -1;
+  if (!plan->step_logs.empty()) {
+    parameters->Use("inductance", kTest);
+    double inductance_start_H = 0.0;
+    for (const auto& s : plan->step_logs) inductance_start_H += s.inductance_start_H / static_cast<double>(plan->step_logs.size());
+    l = parameters->Ensure({"inductance", inductance_start_H, 0.0, kMinInductance_H, {}, false});
+  }
+  for (std::size_t k = 0; k < plan->plateau_logs.size(); ++k) {
+    PlateauLog& pl = plan->plateau_logs[k];
+    if (pl.plateaus.empty()) continue;
     // Starting σ: the spread of the plateau means expected from their sample noise.
     double sigma_V = 0.0;
     for (const auto& p : pl.plateaus)
-      sigma_V = std::max(sigma_V, std::hypot(p.voltage_std_V, resistance_start_ohm * p.current_std_A) /
+      sigma_V = std::max(sigma_V, std::hypot(p.voltage_std_V, plan->resistance_start_ohm * p.current_std_A) /
                                       std::sqrt(static_cast<double>(p.samples)));
-    const int g = problem.AddGroup({pl.log->path + " plateau voltage", sigma_V > 0.0 ? sigma_V : 1.0});
+    pl.voltage_group = problem.AddGroup({pl.log->path + " plateau voltage", sigma_V > 0.0 ? sigma_V : 1.0});
     PlateauVoltageResidual residual;
     for (std::size_t j = 0; j < pl.plateaus.size(); ++j) {
       residual.mean_voltage_V.push_back(pl.plateaus[j].mean_voltage_V);
       residual.mean_current_A.push_back(pl.plateaus[j].mean_current_A);
       residual.temperature_factor.push_back(pl.factors[j]);
     }
-    problem.AddResiduals(g, {r, vb}, static_cast<int>(pl.plateaus.size()), residual);
-    groups.push_back(g);
-  }
-  for (std::size_t s = 0; s < step_logs.size(); ++s) {
-    const StepLog& sl = step_logs[s];
-    const double i0_scale_A = std::max(std::fabs(step_starts[s].initial_current_A),
-                                       std::fabs(*std::max_element(sl.log->current_A.begin(), sl.log->current_A.end(),
-                                                                   [](double a, double b) { return std::fabs(a) < std::fabs(b); })));
-    const int i0 = problem.AddParameter({"initial_current_" + std::to_string(s), step_starts[s].initial_current_A,
-                                         i0_scale_A > 0.0 ? i0_scale_A : 1.0, {}, {}, false});
-    const int g = problem.AddGroup({sl.log->path + " step current", sl.current_noise_A > 0.0 ? sl.current_noise_A : 1.0});
-    problem.AddResiduals(g, {r, l, vb, i0}, static_cast<int>(sl.log->size()),
-                         StepCurrentResidual{&sl.log->time_s, &sl.log->voltage_V, &sl.log->current_A, sl.factor});
-    groups.push_back(g);
-  }
-
-  core::SolveOptions solve;
-  solve.confidence = options.confidence;
-  solve.estimate_group_sigmas = true;
-  solve.group_sigma_rounds = kGroupSigmaRounds;
-  const core::FitResult fit = problem.Solve(solve);
-  estimate.solver.push_back(core::ToSolverSummary(fit));
-
-  // 6. Report.
-  std::size_t summary_index = 0;
-  for (std::size_t k = 0; k < groups.size(); ++k, ++summary_index) {
-    if (groups[k] < 0) continue;
-    const core::GroupStatistics& g = fit.groups[groups[k]];
-    const bool plateau_group = k < plateau_logs.size();
-    estimate.tests[summary_index].residuals.push_back(
-        {plateau_group ? "voltage" : "current", plateau_group ? "V" : "A", g.rms, g.sigma, g.lag1_autocorrelation,
-         g.num_residuals});
-  }
-  if (!fit.usable) {
-    std::string reason = "the locked-rotor fit did not give a usable solution: " + fit.message;
-    for (const char* key : {"resistance", "inductance", "brush_drop"}) {
-      if (std::string(key) == "inductance" && l < 0) continue;
-      estimate.not_identified.push_back({key, reason});
+    problem.AddResiduals(pl.voltage_group, {r, vb}, static_cast<int>(pl.plateaus.size()), residual);
+    if (!plan->measures_torque_constant || !pl.plateaus.front().has_torque) continue;
+    PlateauTorqueResidual torque;
+    double sigma_N_m = 0.0;
+    for (const auto& p : pl.plateaus) {
+      torque.mean_torque_N_m.push_back(p.mean_torque_N_m);
+      torque.mean_current_A.push_back(p.mean_current_A);
+      sigma_N_m = std::max(sigma_N_m, p.torque_std_N_m / std::sqrt(static_cast<double>(p.samples)));
     }
-    if (l < 0) estimate.not_identified.push_back({"inductance", "needs a locked-rotor step capture"});
-    return estimate;
+    const int kt = parameters->Ensure({"torque_constant", plan->torque_constant_start, 0.0, 0.0, {}, false});
+    double torque_scale_N_m = 0.0;
+    for (double t : torque.mean_torque_N_m) torque_scale_N_m = std::max(torque_scale_N_m, std::fabs(t));
+    const int offset = parameters->Ensure({"torque_offset_" + std::to_string(k), 0.0,
+                                           torque_scale_N_m > 0.0 ? torque_scale_N_m : 1.0, {}, {}, false});
+    pl.torque_group = problem.AddGroup({pl.log->path + " plateau torque", sigma_N_m > 0.0 ? sigma_N_m : 1.0});
+    problem.AddResiduals(pl.torque_group, {kt, offset}, static_cast<int>(pl.plateaus.size()), torque);
   }
-  std::vector<std::string> tests = {kTest};
+  for (std::size_t s = 0; s < plan->step_logs.size(); ++s) {
+    StepLog& sl = plan->step_logs[s];
+    double peak_A = std::fabs(sl.initial_current_A);
+    for (double i : sl.log->current_A) peak_A = std::max(peak_A, std::fabs(i));
+    const int i0 = parameters->Ensure({"initial_current_" + std::to_string(s), sl.initial_current_A,
+                                       peak_A > 0.0 ? peak_A : 1.0, {}, {}, false});
+    sl.group = problem.AddGroup({sl.log->path + " step current", sl.current_noise_A > 0.0 ? sl.current_noise_A : 1.0});
+    problem.AddResiduals(sl.group, {r, l, vb, i0}, static_cast<int>(sl.log->size()),
+                         StepCurrentResidual{&sl.log->time_s, &sl.log->voltage_V, &sl.log->current_A, sl.factor});
+  }
+}
+
+std::vector<std::string> LockedRotorParameterNames(const LockedRotorPlan& plan) {
+  std::vector<std::string> names;
+  if (!plan.resistance_identified) return names;
+  names.push_back("resistance");
+  if (!plan.step_logs.empty()) names.push_back("inductance");
+  if (plan.estimate_brush_drop) names.push_back("brush_drop");
+  if (plan.measures_torque_constant) names.push_back("torque_constant");
+  return names;
+}
+
+void ReportLockedRotor(const LockedRotorPlan& plan, const core::FitResult& fit, MotorEstimate* estimate) {
+  if (!plan.resistance_identified) return;
+  const auto channel = [&](int group, const char* name, const char* unit) {
+    const core::GroupStatistics& g = fit.groups[group];
+    return ChannelResidual{name, unit, g.rms, g.sigma, g.lag1_autocorrelation, g.num_residuals};
+  };
+  for (std::size_t k = 0; k < plan.plateau_logs.size(); ++k) {
+    const PlateauLog& pl = plan.plateau_logs[k];
+    TestSummary& summary = estimate->tests[plan.summary_index[k]];
+    if (pl.voltage_group >= 0) summary.residuals.push_back(channel(pl.voltage_group, "voltage", "V"));
+    if (pl.torque_group >= 0) summary.residuals.push_back(channel(pl.torque_group, "torque", "N*m"));
+  }
+  for (std::size_t s = 0; s < plan.step_logs.size(); ++s)
+    estimate->tests[plan.summary_index[plan.plateau_logs.size() + s]].residuals.push_back(
+        channel(plan.step_logs[s].group, "current", "A"));
+  if (!fit.usable) {
+    const std::string reason = "the fit did not give a usable solution: " + fit.message;
+    for (const auto& key : LockedRotorParameterNames(plan)) estimate->not_identified.push_back({key, reason});
+    if (plan.step_logs.empty()) estimate->not_identified.push_back({"inductance", "needs a locked-rotor step capture"});
+    return;
+  }
+  const std::vector<std::string> tests = {kTest};
   QuantityEstimate resistance = core::ToQuantity(fit, "resistance", "R", "ohm", tests);
-  if (reference_degC) {
-    resistance.at_temperature_degC = *reference_degC;
-    resistance.note = options.reference_temperature_degC
-                          ? "corrected to " + Format("%g", *reference_degC) + " degC (copper, k = " +
+  if (plan.reference_degC) {
+    resistance.at_temperature_degC = *plan.reference_degC;
+    resistance.note = plan.reference_requested
+                          ? "corrected to " + Format("%g", *plan.reference_degC) + " degC (copper, k = " +
                                 Format("%g", units::kCopperTemperatureConstant_degC) + " degC, IEC 60028)"
-                          : "at the mean test temperature, " + Format("%.1f", *reference_degC) + " degC";
+                          : "at the mean test temperature, " + Format("%.1f", *plan.reference_degC) + " degC";
   } else {
     resistance.note = "at the (unrecorded) winding temperature of the test";
   }
-  estimate.parameters.push_back(resistance);
-  std::vector<std::string> covariance_names = {"resistance"};
-  if (l >= 0) {
-    estimate.parameters.push_back(core::ToQuantity(fit, "inductance", "L", "H", tests));
-    covariance_names.push_back("inductance");
+  estimate->parameters.push_back(resistance);
+  if (!plan.step_logs.empty()) {
+    estimate->parameters.push_back(core::ToQuantity(fit, "inductance", "L", "H", tests));
   } else {
-    estimate.not_identified.push_back(
-        {"inductance", plateau_logs.empty()
-                           ? "needs a locked-rotor step capture"
-                           : "needs a locked-rotor step capture that resolves the current rise (at least " +
-                                 Format("%.0f", kMinSamplesPerTimeConstant) +
-                                 " samples per L/R); the logs given are plateau logs"});
+    estimate->not_identified.push_back(
+        {"inductance", "needs a locked-rotor step capture that resolves the current rise (at least " +
+                           Format("%.0f", kMinSamplesPerTimeConstant) +
+                           " samples per L/R); the logs given are plateau logs"});
   }
-  if (estimate_brush_drop) {
-    estimate.parameters.push_back(core::ToQuantity(fit, "brush_drop", "Vb", "V", tests));
-    covariance_names.push_back("brush_drop");
+  if (plan.estimate_brush_drop) {
+    estimate->parameters.push_back(core::ToQuantity(fit, "brush_drop", "Vb", "V", tests));
   } else {
-    estimate.not_identified.push_back(
-        {"brush_drop", "needs locked-rotor plateaus at 2 or more current levels (3 plateaus at least); found " +
-                           std::to_string(level_count) + " settled levels at " + std::to_string(current_levels) +
-                           " levels, so Vb was held at 0 V and R includes its effect"});
+    estimate->not_identified.push_back(
+        {"brush_drop", "needs locked-rotor plateaus at 2 or more current levels (3 levels at least); found " +
+                           std::to_string(plan.level_count) + " settled levels at " +
+                           std::to_string(plan.current_levels) +
+                           " current magnitudes, so Vb was held at 0 V and R includes its effect"});
   }
-  core::CopyCovariance(fit, covariance_names, &estimate);
+  if (plan.measures_torque_constant) {
+    QuantityEstimate kt = core::ToQuantity(fit, "torque_constant", "Kt", "N*m/A", tests);
+    kt.basis = "measured";
+    kt.note = "from the locked-rotor torque column";
+    estimate->parameters.push_back(kt);
+  }
 
-  // 7. Heating: R should not drift across plateaus once temperature is accounted for.
-  for (std::size_t k = 0; k < plateau_logs.size(); ++k) {
-    const PlateauLog& pl = plateau_logs[k];
+  // Heating: R should not drift across plateaus once temperature is accounted for.
+  for (std::size_t k = 0; k < plan.plateau_logs.size(); ++k) {
+    const PlateauLog& pl = plan.plateau_logs[k];
     if (auto drift = DetectResistanceDrift(pl.plateaus, pl.factors, fit.Get("brush_drop").value)) {
       const std::string text = pl.log->path + ": resistance " + (drift->relative_change > 0 ? "rose" : "fell") +
                                " by " + Format("%.1f", 100.0 * std::fabs(drift->relative_change)) +
@@ -321,10 +372,28 @@ MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const Loc
                                (pl.plateaus.front().has_temperature ? " beyond what the logged temperature explains"
                                                                     : " (winding heating?)") +
                                "; use shorter pulses, let the winding cool between levels, or log its temperature";
-      estimate.tests[k].warnings.push_back(text);
-      estimate.warnings.push_back(text);
+      estimate->tests[plan.summary_index[k]].warnings.push_back(text);
+      estimate->warnings.push_back(text);
     }
   }
+}
+
+MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const LockedRotorOptions& options) {
+  MotorEstimate estimate;
+  estimate.confidence = options.confidence;
+  LockedRotorPlan plan = PlanLockedRotor(logs, options, &estimate);
+  if (!plan.resistance_identified) return estimate;
+  core::LeastSquaresProblem problem;
+  core::SharedParameters parameters(&problem);
+  AddLockedRotor(&plan, &parameters);
+  core::SolveOptions solve;
+  solve.confidence = options.confidence;
+  solve.estimate_group_sigmas = true;
+  solve.group_sigma_rounds = kGroupSigmaRounds;
+  const core::FitResult fit = problem.Solve(solve);
+  estimate.solver.push_back(core::ToSolverSummary(fit));
+  ReportLockedRotor(plan, fit, &estimate);
+  if (fit.usable) core::CopyCovariance(fit, LockedRotorParameterNames(plan), &estimate);
   return estimate;
 }
 

@@ -41,8 +41,8 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("session", a->session_path, "Session file (TOML) naming the motor, bench settings and test logs")
       ->check(CLI::ExistingFile);
   c->add_option("--locked-rotor", a->locked_rotor_files, "Locked-rotor log (plateaus or a step capture); repeatable");
-  c->add_option("--no-load", a->no_load_files, "No-load log; repeatable (not yet supported)");
-  c->add_option("--spin-down", a->spin_down_files, "Spin-down log; repeatable (not yet supported)");
+  c->add_option("--no-load", a->no_load_files, "No-load log (free shaft, settled supply levels); repeatable");
+  c->add_option("--spin-down", a->spin_down_files, "Spin-down log (run up, then an open-circuit coast); repeatable");
   c->add_option("--step", a->step_files, "Free-shaft voltage step log; repeatable (not yet supported)");
   c->add_option("--cpr", a->counts_per_rev, "Encoder counts per revolution, for position [counts]")
       ->check(CLI::PositiveNumber);
@@ -54,6 +54,11 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
                 "Temperature [degC] to which resistance is corrected");
   c->add_option("--known-inertia", a->known_inertia_kg_m2, "Inertia of the rotating assembly [kg*m^2], when known")
       ->check(CLI::PositiveNumber);
+  c->add_option("--at-voltage", a->at_voltage_V,
+                "Operating voltage [V] of the derived quantities (default: the highest settled level logged)")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--tolerance", a->tolerance, "Kt/Ke consistency tolerance, e.g. 0.05 for 1 +/- 5 %")
+      ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
   c->add_option("--confidence", a->confidence, "Two-sided interval level, e.g. 0.95")
       ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
   c->add_option("--column", a->column_specs,
@@ -98,7 +103,8 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (!joint::IsSupported(p.kind))
       throw InputError(InputErrorKind::kBadOption, p.path, 0, 0,
                        std::string(TestKindToString(p.kind)) +
-                           " tests are not yet supported by this version of coilspin (locked-rotor only)");
+                           " tests are not yet supported by this version of coilspin "
+                           "(locked-rotor, no-load and spin-down are)");
 
   joint::MotorFitOptions options;
   options.motor_label = session ? session->motor_label : "";
@@ -107,6 +113,11 @@ int RunFit(const FitArguments& a, std::ostream& out) {
       FirstOf(a.winding_temperature_degC, session ? session->winding_temperature_degC : std::nullopt);
   options.locked_rotor.reference_temperature_degC =
       FirstOf(a.reference_temperature_degC, session ? session->reference_temperature_degC : std::nullopt);
+  options.known_inertia_kg_m2 = FirstOf(a.known_inertia_kg_m2, session ? session->known_inertia_kg_m2 : std::nullopt);
+  options.at_voltage_V = a.at_voltage_V;
+  options.counts_per_rev = flag_read.counts_per_rev;
+  options.gear_ratio = flag_read.gear_ratio;
+  if (a.tolerance) options.consistency_tolerance = *a.tolerance;
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
 
@@ -127,11 +138,16 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     estimate.settings.push_back({"reference_temperature_degC", Text(*options.locked_rotor.reference_temperature_degC)});
   if (flag_read.counts_per_rev) estimate.settings.push_back({"encoder_cpr", Text(*flag_read.counts_per_rev)});
   estimate.settings.push_back({"gear_ratio", Text(flag_read.gear_ratio)});
-  if (auto j = FirstOf(a.known_inertia_kg_m2, session ? session->known_inertia_kg_m2 : std::nullopt))
-    estimate.settings.push_back({"known_inertia_kg_m2", Text(*j)});
+  if (options.known_inertia_kg_m2) estimate.settings.push_back({"known_inertia_kg_m2", Text(*options.known_inertia_kg_m2)});
+  if (options.at_voltage_V) estimate.settings.push_back({"at_voltage_V", Text(*options.at_voltage_V)});
+  estimate.settings.push_back({"consistency_tolerance", Text(options.consistency_tolerance)});
 
   std::vector<std::string> required = a.required;
-  required.push_back("resistance");  // what a locked-rotor test is for
+  for (const auto& p : planned) {  // what each test is for
+    if (p.kind == TestKind::kLockedRotor) required.push_back("resistance");
+    if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
+    if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
+  }
   std::vector<std::string> undetermined;
   for (const auto& key : required)
     for (const auto& [missing, reason] : estimate.not_identified)

@@ -21,6 +21,8 @@ struct FitArguments {
   std::optional<double> reference_temperature_degC;
   std::optional<double> known_inertia_kg_m2;
   std::optional<double> confidence;
+  std::optional<double> at_voltage_V;
+  std::optional<double> tolerance;
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined

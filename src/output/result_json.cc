@@ -64,6 +64,16 @@ std::string ResultJson(const MotorEstimate& e) {
   j["ratios"] = QuantitiesJson(e.ratios);
   j["correlation"] = {{"names", e.correlation_names}, {"matrix", e.correlation}};
   j["derived"] = QuantitiesJson(e.derived);
+  if (e.torque_speed) {
+    Json points = Json::array();
+    for (const auto& p : e.torque_speed->points)
+      points.push_back({{"speed", p.speed_rad_s}, {"torque", p.torque_N_m}, {"ci", Json::array({p.ci_low, p.ci_high})}});
+    j["torque_speed"] = {{"at_voltage", e.torque_speed->at_voltage_V},
+                         {"speed_unit", "rad/s"},
+                         {"torque_unit", "N*m"},
+                         {"includes_friction", e.torque_speed->includes_friction},
+                         {"points", points}};
+  }
   if (e.consistency) {
     const Consistency& c = *e.consistency;
     Json k;

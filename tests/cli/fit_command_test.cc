@@ -81,8 +81,8 @@ TEST_F(FitCommand, RequiredInductanceWithoutStepCaptureExitsOne) {
   EXPECT_TRUE(j["not_identified"].contains("inductance"));
 }
 
-TEST_F(FitCommand, FreeShaftTestsAreNotYetSupported) {
-  const RunResult r = RunCoilspin("fit --no-load plateaus.csv", dir());
+TEST_F(FitCommand, FreeShaftStepIsNotYetSupported) {
+  const RunResult r = RunCoilspin("fit --step plateaus.csv", dir());
   EXPECT_EQ(r.status, 2);
   EXPECT_NE(r.err.find("not yet supported"), std::string::npos);
 }

@@ -16,6 +16,7 @@ inline BenchLog ToBenchLog(const model::SampledLog& s, const std::string& name) 
   log.voltage_V = s.voltage_V;
   log.current_A = s.current_A;
   log.speed_rad_s = s.speed_rad_s;
+  log.position_rad = s.position_rad;
   log.torque_N_m = s.torque_N_m;
   log.temperature_degC = s.temperature_degC;
   return log;

@@ -1,0 +1,74 @@
+#pragma once
+// The no-load fitter: Ke, and friction B, Tc relative to Kt, from settled
+// free-shaft plateaus at several supply levels (no_load_residual.h).
+//
+// R and Vb are shared with the locked-rotor test when one is given. With
+// no-load logs alone R is fitted too: the plateau currents change only through
+// friction, so R is poorly determined and its interval shows it; Vb is then
+// held at 0 (it cannot be told from R·ī, which barely varies).
+// Friction needs Kt: measured (a locked-rotor torque column) or taken equal to
+// Ke in SI units; the caller decides which parameter plays Kt.
+//
+// Identifiability: Ke needs 2 plateaus with speed (3 when R is fitted here);
+// B and Tc need 3 (two unknowns and a degree of freedom).
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "fitters/core/least_squares.h"
+#include "fitters/core/motor_estimate.h"
+#include "fitters/core/shared_parameters.h"
+#include "src/ingest/bench_log.h"
+#include "src/ingest/segmentation.h"
+
+namespace coilspin::no_load {
+
+// A log's shaft speed: the logged column, or one derived from position.
+struct SpeedTrace {
+  const std::vector<double>* speed_rad_s = nullptr;
+  std::string method;  // "logged speed column", or how it was derived
+};
+
+struct NoLoadPlateau {
+  double mean_voltage_V = 0.0;
+  double mean_current_A = 0.0;
+  double mean_speed_rad_s = 0.0;
+  double voltage_std_V = 0.0;
+  double current_std_A = 0.0;
+  double speed_std_rad_s = 0.0;
+  std::size_t samples = 0;
+};
+
+struct NoLoadLog {
+  const BenchLog* log = nullptr;
+  std::vector<NoLoadPlateau> plateaus;
+  int voltage_group = -1;
+  int current_group = -1;
+};
+
+struct NoLoadPlan {
+  std::vector<NoLoadLog> logs;
+  std::size_t plateau_count = 0;
+  bool resistance_from_here = false;  // no locked-rotor test: R is fitted from these plateaus
+  bool back_emf_identified = false;
+  bool friction_identified = false;
+  double back_emf_start = 0.0;
+  double resistance_start_ohm = 0.0;
+  double viscous_start = 0.0;         // B at Kt = Ke start
+  double coulomb_start = 0.0;
+  std::vector<std::size_t> summary_index;
+};
+
+// resistance_ohm / brush_drop_V: starting values from a locked-rotor plan, when there is one.
+NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vector<SpeedTrace>& speeds,
+                      std::optional<double> resistance_ohm, double brush_drop_V, const PlateauOptions& options,
+                      MotorEstimate* estimate);
+
+// torque_constant_name: "torque_constant" when Kt is measured, "back_emf_constant" when Kt = Ke.
+void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::SharedParameters* parameters);
+
+// Residual statistics per log.
+void ReportNoLoad(const NoLoadPlan& plan, const core::FitResult& fit, MotorEstimate* estimate);
+
+}  // namespace coilspin::no_load

@@ -1,0 +1,69 @@
+#pragma once
+// Test helper: a simulated free-shaft bench (locked-rotor plateaus, no-load
+// plateaus, spin-down) for a motor with known parameters. The logs come from
+// the forward model in src/model, itself checked against SciPy solve_ivp and
+// the closed-form coast in tests/model.
+
+#include <string>
+#include <vector>
+
+#include "fitters/joint/motor_fit.h"
+#include "locked_rotor/simulated_bench.h"
+#include "src/model/simulate_locked_rotor.h"
+#include "src/model/simulate_no_load.h"
+#include "src/model/simulate_spin_down.h"
+
+namespace coilspin::testing {
+
+struct BenchOptions {
+  bool locked_rotor = true;
+  bool no_load = true;
+  bool spin_down = true;
+  bool encoder = false;              // position in counts instead of speed
+  bool torque_column = false;        // load cell in the locked-rotor test
+  bool coast_voltage = true;
+  std::uint64_t seed = 1;
+};
+
+inline model::BenchConditions Noise(std::uint64_t seed, bool encoder) {
+  model::BenchConditions b;
+  b.voltage_noise_sigma_V = 5e-3;
+  b.current_noise_sigma_A = 2e-3;
+  b.speed_noise_sigma_rad_s = encoder ? 0.0 : 0.2;
+  b.torque_noise_sigma_N_m = 2e-4;
+  b.encoder_counts_per_rev = encoder ? 2048 : 0;
+  b.seed = seed;
+  return b;
+}
+
+inline std::vector<joint::TestLog> SimulateBench(const model::MotorParameters& m, double top_V, const BenchOptions& o) {
+  std::vector<joint::TestLog> logs;
+  const auto shaft = o.encoder ? model::ShaftChannels::kPosition : model::ShaftChannels::kSpeed;
+  if (o.locked_rotor) {
+    model::PlateauPlan p;
+    for (double f : {0.1, 0.2, 0.3, 0.4, -0.15, -0.3}) p.supply_levels_V.push_back(f * top_V);
+    p.hold_s = 0.3;
+    p.log_torque = o.torque_column;
+    logs.push_back({TestKind::kLockedRotor,
+                    ToBenchLog(model::SimulateLockedRotorPlateaus(m, p, Noise(o.seed, false)), "locked.csv")});
+  }
+  if (o.no_load) {
+    model::NoLoadPlan p;
+    for (double f : {0.25, 0.4, 0.55, 0.7, 0.85, 1.0}) p.supply_levels_V.push_back(f * top_V);
+    p.hold_s = 1.0;
+    p.shaft = shaft;
+    logs.push_back({TestKind::kNoLoad, ToBenchLog(model::SimulateNoLoad(m, p, Noise(o.seed + 1, o.encoder)), "noload.csv")});
+  }
+  if (o.spin_down) {
+    model::SpinDownPlan p;
+    p.supply_V = top_V;
+    p.run_s = 1.0;
+    p.coast_s = 4.0;
+    p.log_voltage = o.coast_voltage;
+    p.shaft = shaft;
+    logs.push_back({TestKind::kSpinDown, ToBenchLog(model::SimulateSpinDown(m, p, Noise(o.seed + 2, o.encoder)), "coast.csv")});
+  }
+  return logs;
+}
+
+}  // namespace coilspin::testing
