@@ -77,7 +77,8 @@ struct SolveOptions {
   double function_tolerance = 1e-15;
   double gradient_tolerance = 1e-15;
   double parameter_tolerance = 1e-15;
-  bool estimate_group_sigmas = false;  // re-estimate σ_g from the residuals and solve again
+  // Re-estimate σ_g from the residuals and solve again (needs residual_variance_from_data).
+  bool estimate_group_sigmas = false;
   int group_sigma_rounds = 3;
   // True: the noise scale is estimated from the residuals (s_g², Student-t).
   // False: σ_g are known exactly (s_g² = 1, normal quantiles).

@@ -146,17 +146,18 @@ inline ReadResult ReadDataSet(const std::string& path, const std::string& name) 
     return result;
   }
 
+  // A parameter line, word by word: b1 = start1 start2 value std_dev
+  constexpr std::size_t kNameWord = 0, kEqualsWord = 1, kFirstStartWord = 2, kStarts = 2;
+  constexpr std::size_t kValueWord = kFirstStartWord + kStarts, kDeviationWord = kValueWord + 1;
   for (int n = start_first; n <= start_last; ++n) {
     const std::vector<std::string> words = Words(lines[static_cast<std::size_t>(n - 1)]);
-    // b1 = start1 start2 value std_dev
-    constexpr std::size_t kParameterLineWords = 6;
-    if (words.size() != kParameterLineWords || words[1] != "=") {
+    if (words.size() != kDeviationWord + 1 || words[kEqualsWord] != "=") {
       result.error = path + ":" + std::to_string(n) + ": not a parameter line";
       return result;
     }
     DataSetParameter parameter;
-    parameter.name = words[0];
-    for (std::size_t k = 2; k < 4; ++k) {
+    parameter.name = words[kNameWord];
+    for (std::size_t k = kFirstStartWord; k < kFirstStartWord + kStarts; ++k) {
       double start = 0.0;
       if (!ParseDouble(words[k], &start)) {
         result.error = path + ":" + std::to_string(n) + ": bad starting value '" + words[k] + "'";
@@ -164,7 +165,8 @@ inline ReadResult ReadDataSet(const std::string& path, const std::string& name) 
       }
       parameter.starts.push_back(start);
     }
-    if (!ParseCertified(words[4], &parameter.estimate) || !ParseCertified(words[5], &parameter.standard_deviation)) {
+    if (!ParseCertified(words[kValueWord], &parameter.estimate) ||
+        !ParseCertified(words[kDeviationWord], &parameter.standard_deviation)) {
       result.error = path + ":" + std::to_string(n) + ": bad certified value";
       return result;
     }

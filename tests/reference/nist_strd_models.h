@@ -12,10 +12,12 @@
 
 #include <boost/math/constants/constants.hpp>
 #include <cmath>
+#include <cstddef>
 
 namespace coilspin::nist {
 
 struct PlainResponse {
+  static constexpr std::size_t kPredictors = 1;
   static double Response(double y) { return y; }
 };
 
@@ -81,6 +83,7 @@ struct DanWood : PlainResponse {
 // Nelson:  log[y] = b1 - b2*x1 * exp[-b3*x2]
 struct Nelson {
   static constexpr int kParameters = 3;
+  static constexpr std::size_t kPredictors = 2;
   static double Response(double y) { return std::log(y); }
   template <typename T>
   static T Mean(const T* b, const double* x) {
