@@ -137,7 +137,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (!free_plateaus.empty())
     nl = no_load::PlanNoLoad(free_plateaus, speeds,
                              lr.resistance_identified ? std::optional<double>(lr.resistance_start_ohm) : std::nullopt,
-                             lr.brush_drop_start_V, NoLoadPlateauOptions(lr_options.plateaus), &e);
+                             lr.brush_drop_start_V, {lr.reference_degC, lr_options.winding_temperature_degC},
+                             NoLoadPlateauOptions(lr_options.plateaus), &e);
   spin_down::SpinDownPlan sd;
   if (!coasts.empty()) {
     std::optional<double> step_rad;

@@ -3,8 +3,10 @@
 #include <Eigen/Dense>
 #include <algorithm>
 #include <cmath>
+#include <numeric>
 
 #include "fitters/no_load/no_load_residual.h"
+#include "src/model/copper_resistance.h"
 
 namespace coilspin::no_load {
 namespace {
@@ -29,13 +31,19 @@ std::optional<Eigen::VectorXd> Solve(const Eigen::MatrixXd& x, const Eigen::Vect
 }  // namespace
 
 NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vector<SpeedTrace>& speeds,
-                      std::optional<double> resistance_ohm, double brush_drop_V, const PlateauOptions& options,
-                      MotorEstimate* estimate) {
+                      std::optional<double> resistance_ohm, double brush_drop_V, const NoLoadTemperatures& temperatures,
+                      const PlateauOptions& options, MotorEstimate* estimate) {
   NoLoadPlan plan;
   plan.resistance_from_here = !resistance_ohm.has_value();
   for (std::size_t k = 0; k < logs.size(); ++k) {
     NoLoadLog nl;
     nl.log = logs[k];
+    std::optional<double> theta_degC = temperatures.winding_degC;
+    if (!logs[k]->temperature_degC.empty())
+      theta_degC = std::accumulate(logs[k]->temperature_degC.begin(), logs[k]->temperature_degC.end(), 0.0) /
+                   static_cast<double>(logs[k]->temperature_degC.size());
+    if (temperatures.reference_degC && theta_degC)
+      nl.temperature_factor = model::CopperResistanceAt(1.0, *temperatures.reference_degC, *theta_degC);
     const std::vector<double>& speed = *speeds[k].speed_rad_s;
     const double speed_noise = NoiseFromDifferences(speed);
     for (const auto& p : FindPlateaus(logs[k]->voltage_V, {&logs[k]->voltage_V, &logs[k]->current_A, &speed}, options)) {
@@ -81,7 +89,7 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
         y(row) = p.mean_voltage_V - vb_V;
       } else {
         x(row, 0) = p.mean_speed_rad_s;
-        y(row) = p.mean_voltage_V - vb_V - *resistance_ohm * p.mean_current_A;
+        y(row) = p.mean_voltage_V - vb_V - *resistance_ohm * nl.temperature_factor * p.mean_current_A;
       }
       friction(row, 0) = p.mean_speed_rad_s;
       friction(row, 1) = Sign(p.mean_speed_rad_s);
@@ -97,6 +105,10 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
     return plan;
   }
   plan.back_emf_start = (*electrical)(0);
+  if (plan.resistance_from_here)
+    estimate->warnings.push_back(
+        "resistance from no-load plateaus alone: the currents change only through friction, so R is poorly "
+        "determined, and it absorbs any brush drop (held at 0 V); add a locked-rotor test");
   plan.resistance_start_ohm = plan.resistance_from_here ? std::max((*electrical)(1), kMinResistance_ohm) : *resistance_ohm;
   if (plan.friction_identified) {
     const auto f = Solve(friction, plan.back_emf_start * current);
@@ -134,6 +146,7 @@ void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::
   for (auto& nl : plan->logs) {
     if (nl.plateaus.empty()) continue;
     NoLoadVoltageResidual voltage;
+    voltage.temperature_factor = nl.temperature_factor;
     NoLoadCurrentResidual current;
     double sigma_V = 0.0, sigma_A = 0.0;
     for (const auto& p : nl.plateaus) {

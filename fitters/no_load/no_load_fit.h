@@ -43,6 +43,7 @@ struct NoLoadPlateau {
 struct NoLoadLog {
   const BenchLog* log = nullptr;
   std::vector<NoLoadPlateau> plateaus;
+  double temperature_factor = 1.0;  // f = (k + θ)/(k + θ_ref) of the log's winding temperature
   int voltage_group = -1;
   int current_group = -1;
 };
@@ -60,10 +61,17 @@ struct NoLoadPlan {
   std::vector<std::size_t> summary_index;
 };
 
+// Temperatures of the shared R: the reference it is fitted at (from the
+// locked-rotor plan) and the winding temperature when no column is logged.
+struct NoLoadTemperatures {
+  std::optional<double> reference_degC;
+  std::optional<double> winding_degC;
+};
+
 // resistance_ohm / brush_drop_V: starting values from a locked-rotor plan, when there is one.
 NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vector<SpeedTrace>& speeds,
-                      std::optional<double> resistance_ohm, double brush_drop_V, const PlateauOptions& options,
-                      MotorEstimate* estimate);
+                      std::optional<double> resistance_ohm, double brush_drop_V, const NoLoadTemperatures& temperatures,
+                      const PlateauOptions& options, MotorEstimate* estimate);
 
 // torque_constant_name: "torque_constant" when Kt is measured, "back_emf_constant" when Kt = Ke.
 void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::SharedParameters* parameters);

@@ -1,5 +1,6 @@
 #include "src/cli/simulate_command.h"
 
+#include <limits>
 #include <sstream>
 #include <stdexcept>
 
@@ -53,32 +54,32 @@ void RejectInapplicable(const SimulateArguments& a, Kind kind) {
     const char* option;
     bool given;
     bool applies;
-    const char* where;
+    const char* otherwise;  // the rest of the message
   };
   const Rule rules[] = {
-      {"--step", !a.step_spec.empty(), locked, "locked-rotor"},
-      {"--levels", !a.levels_V.empty(), plateaus || no_load, "locked-rotor plateaus and no-load"},
-      {"--hold", a.hold_s.has_value(), plateaus || no_load, "locked-rotor plateaus and no-load"},
-      {"--log-temperature", a.log_temperature, locked || no_load, "locked-rotor and no-load"},
-      {"--heating-per-plateau", a.bench.heating_per_plateau_K != 0.0, locked, "locked-rotor"},
-      {"--log-torque", a.log_torque, plateaus, "locked-rotor plateaus"},
-      {"--torque-noise", a.torque_noise_sigma_N_m.has_value(), a.log_torque, "a torque column (--log-torque)"},
-      {"--supply", a.supply_V.has_value(), spin_down, "spin-down"},
-      {"--run", a.run_s.has_value(), spin_down, "spin-down"},
-      {"--coast", a.coast_s.has_value(), spin_down, "spin-down"},
-      {"--brake-resistance", a.brake_resistance_ohm.has_value(), spin_down, "spin-down"},
-      {"--no-coast-voltage", a.no_coast_voltage, spin_down, "spin-down"},
-      {"--no-coast-current", a.no_coast_current, spin_down, "spin-down"},
-      {"--cpr", a.counts_per_rev.has_value(), free_shaft, "no-load and spin-down"},
-      {"--log-speed-and-position", a.log_speed_and_position, free_shaft, "no-load and spin-down"},
-      {"--gear-ratio", a.gear_ratio.has_value(), free_shaft, "no-load and spin-down"},
+      {"--step", !a.step_spec.empty(), locked, "applies to locked-rotor only"},
+      {"--levels", !a.levels_V.empty(), plateaus || no_load, "applies to locked-rotor plateaus and no-load only"},
+      {"--hold", a.hold_s.has_value(), plateaus || no_load, "applies to locked-rotor plateaus and no-load only"},
+      {"--log-temperature", a.log_temperature, locked || no_load, "applies to locked-rotor and no-load only"},
+      {"--heating-per-plateau", a.bench.heating_per_plateau_K != 0.0, locked, "applies to locked-rotor only"},
+      {"--log-torque", a.log_torque, plateaus, "applies to locked-rotor plateaus only"},
+      {"--torque-noise", a.torque_noise_sigma_N_m.has_value(), a.log_torque, "needs a torque column (--log-torque)"},
+      {"--supply", a.supply_V.has_value(), spin_down, "applies to spin-down only"},
+      {"--run", a.run_s.has_value(), spin_down, "applies to spin-down only"},
+      {"--coast", a.coast_s.has_value(), spin_down, "applies to spin-down only"},
+      {"--brake-resistance", a.brake_resistance_ohm.has_value(), spin_down, "applies to spin-down only"},
+      {"--no-coast-voltage", a.no_coast_voltage, spin_down, "applies to spin-down only"},
+      {"--no-coast-current", a.no_coast_current, spin_down, "applies to spin-down only"},
+      {"--cpr", a.counts_per_rev.has_value(), free_shaft, "applies to no-load and spin-down only"},
+      {"--log-speed-and-position", a.log_speed_and_position, free_shaft, "applies to no-load and spin-down only"},
+      {"--gear-ratio", a.gear_ratio.has_value(), free_shaft, "applies to no-load and spin-down only"},
       {"--speed-noise", a.speed_noise_sigma_rad_s.has_value(), free_shaft && LogsSpeed(a),
-       "a speed column (no-load or spin-down, without --cpr or with --log-speed-and-position)"},
+       "needs a speed column (no-load or spin-down, without --cpr or with --log-speed-and-position)"},
       {"--position-unit", a.position_unit.has_value(), free_shaft && LogsPosition(a),
-       "a position column (no-load or spin-down with --cpr or --log-speed-and-position)"},
+       "needs a position column (no-load or spin-down, with --cpr or --log-speed-and-position)"},
   };
   for (const Rule& rule : rules) {
-    if (rule.given && !rule.applies) Bad(std::string(rule.option) + " applies to " + rule.where + " only");
+    if (rule.given && !rule.applies) Bad(std::string(rule.option) + " " + rule.otherwise);
   }
 }
 
@@ -166,7 +167,11 @@ model::SampledLog SpinDownLog(const SimulateArguments& a, const model::MotorPara
   plan.supply_V = *a.supply_V;
   plan.brake_resistance_ohm = a.brake_resistance_ohm;
   plan.run_s = a.run_s ? *a.run_s : model::SettlingTime_s(motor, bench);
-  plan.coast_s = a.coast_s ? *a.coast_s : model::CoastTime_s(motor, plan);
+  try {
+    plan.coast_s = a.coast_s ? *a.coast_s : model::CoastTime_s(motor, plan);
+  } catch (const std::invalid_argument& e) {
+    Bad(std::string(e.what()) + " with --coast");
+  }
   plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
   plan.log_voltage = !a.no_coast_voltage;
   plan.log_current = !a.no_coast_current;
@@ -186,6 +191,9 @@ output::CsvStyle StyleFor(const SimulateArguments& a, const model::BenchConditio
   style.header_for = ParseQuantityMap(a.rename_specs, "--header");
   style.counts_per_rev = bench.encoder_counts_per_rev;
   if (a.position_unit) {
+    if (*a.position_unit == kCountsUnit && bench.encoder_counts_per_rev == 0) {
+      Bad("--position-unit counts needs the encoder's counts per revolution: give --cpr N");
+    }
     style.position_unit = *a.position_unit;
   } else if (bench.encoder_counts_per_rev > 0) {
     style.position_unit = kCountsUnit;
@@ -225,7 +233,8 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
       ->check(CLI::NonNegativeNumber);
   c->add_option("--coulomb-friction", a->motor.coulomb_friction_N_m, "Tc [N*m]")->check(CLI::NonNegativeNumber);
   // The test plan.
-  c->add_option("--levels", a->levels_V, "Supply levels [V]: locked-rotor plateaus or no-load levels, e.g. --levels 2,4,6,-3")
+  c->add_option("--levels", a->levels_V,
+                "Supply levels [V]: locked-rotor plateaus or no-load levels, e.g. --levels 2,4,6,-3")
       ->delimiter(',');
   c->add_option("--hold", a->hold_s, "Time at each level [s] (0.5 locked-rotor; no-load: until settled)")
       ->check(CLI::PositiveNumber);
@@ -233,7 +242,8 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_option("--before", a->before_s, "Time logged before the step [s]")->check(CLI::PositiveNumber);
   c->add_option("--after", a->after_s, "Time logged after the step [s]")->check(CLI::PositiveNumber);
   c->add_option("--supply", a->supply_V, "Spin-down: supply voltage [V] of the run");
-  c->add_option("--run", a->run_s, "Spin-down: time at the supply before it is disconnected [s] (default: until settled)")
+  c->add_option("--run", a->run_s,
+                "Spin-down: time at the supply before it is disconnected [s] (default: until settled)")
       ->check(CLI::PositiveNumber);
   c->add_option("--coast", a->coast_s, "Spin-down: time logged after the disconnection [s] (default: to rest)")
       ->check(CLI::PositiveNumber);
@@ -262,10 +272,12 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_option("--heating-per-plateau", a->bench.heating_per_plateau_K, "Winding temperature rise per level [K]");
   c->add_flag("--log-temperature", a->log_temperature, "Add a temperature [degC] column");
   c->add_flag("--log-torque", a->log_torque, "Locked-rotor plateaus: add a load-cell torque column, tau = Kt*i");
-  c->add_option("--cpr", a->counts_per_rev, "An encoder of this many counts per revolution: log position [counts] instead of speed")
-      ->check(CLI::PositiveNumber);
+  c->add_option("--cpr", a->counts_per_rev,
+                "An encoder of this many counts per revolution: log position [counts] instead of speed")
+      ->check(CLI::Range(1, std::numeric_limits<int>::max()));
   c->add_flag("--log-speed-and-position", a->log_speed_and_position, "Log both speed and position");
-  c->add_option("--gear-ratio", a->gear_ratio, "Motor turns per output turn: speed and position read at the gearbox output")
+  c->add_option("--gear-ratio", a->gear_ratio,
+                "Motor turns per output turn: speed and position read at the gearbox output")
       ->check(CLI::PositiveNumber);
   c->add_option("--seed", a->bench.seed, "Noise seed (same seed, same file)");
   // The file.

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <sstream>
 #include <stdexcept>
 #include <string>
 
@@ -188,10 +189,12 @@ long FreeShaftSubSteps(const MotorParameters& motor, const FreeShaftInput& input
   Validate(motor, input, duration_s);
   const double fastest_s = TimeConstantsOf(motor, input).fastest_s;
   const double wanted = std::ceil(duration_s / fastest_s * kRungeKuttaStepsPerTimeConstant);
-  Require(wanted <= static_cast<double>(kMaxSubStepsPerCall),
-          "a time constant of " + std::to_string(fastest_s) + " s needs more than " +
-              std::to_string(kMaxSubStepsPerCall) + " sub-steps over " + std::to_string(duration_s) +
-              " s; use a shorter sample period");
+  if (!(wanted <= static_cast<double>(kMaxSubStepsPerCall))) {
+    std::ostringstream what;
+    what << "a time constant of " << fastest_s << " s needs more than " << kMaxSubStepsPerCall
+         << " sub-steps over " << duration_s << " s; use a shorter sample period";
+    throw std::invalid_argument("free-shaft integration: " + what.str());
+  }
   return std::max(static_cast<long>(wanted), static_cast<long>(kMinSubStepsPerCall));
 }
 

@@ -150,11 +150,12 @@ TEST(FreeShaftDynamics, StictionHoldsTheRotorUntilTheTorqueExceedsTc) {
   const double strong_V = 3.0;
   const double breakaway_s = -(l / r) * std::log(1.0 - tc * r / (kt * (strong_V - vb)));
   constexpr double kAside = 1e-6;
-  const FreeShaftState still = AdvanceFreeShaft(kMotor, Supply(strong_V, 0.0), FreeShaftState{}, (1.0 - kAside) * breakaway_s);
+  const FreeShaftInput strong = Supply(strong_V, 0.0);
+  const FreeShaftState still = AdvanceFreeShaft(kMotor, strong, FreeShaftState{}, (1.0 - kAside) * breakaway_s);
   EXPECT_EQ(still.speed_rad_s, 0.0);
   const double expected_A = (strong_V - vb) / r * (1.0 - std::exp(-(1.0 - kAside) * breakaway_s * r / l));
   EXPECT_NEAR(still.current_A, expected_A, kIntegratorRelativeTolerance * expected_A);
-  const FreeShaftState moving = AdvanceFreeShaft(kMotor, Supply(strong_V, 0.0), FreeShaftState{}, (1.0 + kAside) * breakaway_s);
+  const FreeShaftState moving = AdvanceFreeShaft(kMotor, strong, FreeShaftState{}, (1.0 + kAside) * breakaway_s);
   EXPECT_GT(moving.speed_rad_s, 0.0);
 }
 

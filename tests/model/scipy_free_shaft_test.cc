@@ -152,9 +152,9 @@ TEST_F(SciPyFreeShaftTest, OpenCircuitSpinDownAgreesWithSolveIvp) {
   plan.shaft = ShaftChannels::kSpeedAndPosition;
   const SampledLog log = SimulateSpinDown(kMotor, plan, Bench());
   int status = 0;
-  const Reference reference = RunReference(
-      {SupplySegment(plan.supply_V, kSupplyResistance_ohm, kSamplesPerLevel), "open:" + std::to_string(6 * kSamplesPerLevel)},
-      &status);
+  const Reference reference = RunReference({SupplySegment(plan.supply_V, kSupplyResistance_ohm, kSamplesPerLevel),
+                                            "open:" + std::to_string(6 * kSamplesPerLevel)},
+                                           &status);
   ASSERT_EQ(status, 0);
   ExpectAgreement(log.current_A, reference.current_A, "current");
   EXPECT_GT(ExpectAgreement(log.speed_rad_s, reference.speed_rad_s, "speed"), 10) << "the rotor stopped";

@@ -87,7 +87,8 @@ TEST(SimulateNoLoad, FrictionlessMotorSpinsAtTheIdealNoLoadSpeed) {
     const std::size_t last = (level + 1) * per_level - 1;
     const double ideal_rad_s = plan.supply_levels_V[level] / motor.back_emf_constant_V_s_per_rad;
     EXPECT_NEAR(log.speed_rad_s[last], ideal_rad_s, kSettledRelativeTolerance * ideal_rad_s);
-    EXPECT_NEAR(log.current_A[last], 0.0, kSettledRelativeTolerance * plan.supply_levels_V[level] / motor.resistance_ohm);
+    const double stall_A = plan.supply_levels_V[level] / motor.resistance_ohm;
+    EXPECT_NEAR(log.current_A[last], 0.0, kSettledRelativeTolerance * stall_A);
   }
 }
 
