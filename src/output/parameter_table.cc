@@ -48,7 +48,15 @@ std::string ParameterTable(const MotorEstimate& e) {
   if (!e.ratios.empty()) out << "\n";
   Section(out, "ratios", e.ratios);
   if (!e.derived.empty()) out << "\n";
-  Section(out, "derived", e.derived);
+  std::string derived_title = "derived";
+  for (const auto& q : e.derived)
+    if (q.at_voltage_V) {
+      char at[96];
+      std::snprintf(at, sizeof at, " (quantities of the torque-speed line at V = %.4g V)", *q.at_voltage_V);
+      derived_title += at;
+      break;
+    }
+  Section(out, derived_title.c_str(), e.derived);
   if (!e.not_identified.empty()) {
     out << "\nnot identified\n";
     for (const auto& [key, reason] : e.not_identified) out << "  " << key << ": " << reason << "\n";
