@@ -13,6 +13,7 @@
 #include "fitters/spin_down/spin_down_fit.h"
 #include "src/ingest/encoder_speed.h"
 #include "src/units/constants.h"
+#include "src/ingest/small_text_and_statistics.h"
 
 namespace coilspin::joint {
 namespace {
@@ -20,12 +21,6 @@ namespace {
 constexpr int kGroupSigmaRounds = 3;
 constexpr int kTorqueSpeedPoints = 11;
 const char* const kTiedBasis = "equal-to-Ke";
-
-std::string Format(const char* format, double value) {
-  char buffer[64];
-  std::snprintf(buffer, sizeof buffer, format, value);
-  return buffer;
-}
 
 bool Has(const MotorEstimate& e, const std::string& key) {
   if (e.Find(key)) return true;

@@ -15,6 +15,7 @@
 #include "fitters/locked_rotor/step_residual.h"
 #include "src/units/constants.h"
 #include "src/model/copper_resistance.h"
+#include "src/ingest/small_text_and_statistics.h"
 
 namespace coilspin::locked_rotor {
 namespace {
@@ -29,12 +30,6 @@ constexpr double kMinInductance_H = 1e-12;
 constexpr int kGroupSigmaRounds = 3;
 // Kt from a torque column needs this many plateaus (two unknowns, Kt and τ0, and one degree of freedom).
 constexpr std::size_t kMinTorquePlateaus = 3;
-
-std::string Format(const char* format, double value) {
-  char buffer[64];
-  std::snprintf(buffer, sizeof buffer, format, value);
-  return buffer;
-}
 
 // Distinct current magnitudes among the plateaus of all logs.
 int DistinctCurrentLevels(const std::vector<PlateauLog>& logs) {

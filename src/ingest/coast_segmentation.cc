@@ -1,3 +1,4 @@
+#include "src/ingest/small_text_and_statistics.h"
 #include "src/ingest/coast_segmentation.h"
 
 #include <algorithm>
@@ -87,21 +88,6 @@ constexpr double kCoastCurrentSigmas = 3.0;
 // The speed at the end of the log: the median of its last 5 samples (a spike of
 // up to 2 samples cannot move it; order statistics).
 constexpr std::size_t kEndSamples = 5;
-
-std::string Format(const char* format, double value) {
-  std::array<char, 64> buffer{};
-  std::snprintf(buffer.data(), buffer.size(), format, value);
-  return buffer.data();
-}
-
-double Median(std::vector<double> values) {
-  const std::size_t middle = values.size() / 2;
-  std::nth_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle), values.end());
-  const double upper = values[middle];
-  if (values.size() % 2 == 1) return upper;
-  const double lower = *std::max_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle));
-  return 0.5 * (lower + upper);
-}
 
 double MedianOf(const std::vector<double>& x, std::size_t begin, std::size_t end) {
   return Median(std::vector<double>(x.begin() + static_cast<std::ptrdiff_t>(begin),

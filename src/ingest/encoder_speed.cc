@@ -1,3 +1,4 @@
+#include "src/ingest/small_text_and_statistics.h"
 #include "src/ingest/encoder_speed.h"
 
 #include <algorithm>
@@ -33,21 +34,6 @@ constexpr double kRoundingUlps = 1024.0;
 constexpr double kReuseTolerance = 1e-6;
 // Σ_{k=−m..m} k² = m(m+1)(2m+1)/3 (sum of squares; handbook).
 constexpr double kSumOfSquaresDivisor = 3.0;
-
-std::string Format(const char* format, double value) {
-  std::array<char, 64> buffer{};
-  std::snprintf(buffer.data(), buffer.size(), format, value);
-  return buffer.data();
-}
-
-double Median(std::vector<double> values) {
-  const std::size_t middle = values.size() / 2;
-  std::nth_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle), values.end());
-  const double upper = values[middle];
-  if (values.size() % 2 == 1) return upper;
-  const double lower = *std::max_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle));
-  return 0.5 * (lower + upper);
-}
 
 // Solves the 3×3 system M·r = e_d by Gaussian elimination with partial pivoting.
 std::array<double, 3> SolveUnit(std::array<std::array<double, 3>, 3> m, std::size_t d) {

@@ -1,5 +1,7 @@
 #include "src/ingest/segmentation.h"
 
+#include "src/ingest/small_text_and_statistics.h"
+
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -36,17 +38,6 @@ constexpr std::size_t kInitialLevelDivisor = 20;
 constexpr std::size_t kInitialLevelMaxSamples = 8;
 constexpr double kStepMinimumSigmas = 8.0;
 constexpr double kInitialLevelSigmas = 4.0;
-
-// Median of the values (reordered in place); the mean of the two middle ones for an even count.
-double Median(std::vector<double>& values) {
-  const std::size_t middle = values.size() / 2;
-  std::nth_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle), values.end());
-  const double upper = values[middle];
-  if (values.size() % 2 == 1) return upper;
-  const double lower =
-      *std::max_element(values.begin(), values.begin() + static_cast<std::ptrdiff_t>(middle));
-  return 0.5 * (lower + upper);
-}
 
 ChannelSummary Summarise(const std::vector<double>& channel, std::size_t begin, std::size_t end) {
   const auto count = static_cast<double>(end - begin);

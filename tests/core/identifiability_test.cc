@@ -9,18 +9,13 @@
 #include <string>
 #include <vector>
 
+#include "core/parameter_start.h"
 #include "fitters/core/least_squares.h"
 
 namespace coilspin::core {
 namespace {
 
-// A parameter to estimate, starting at `initial`, no bounds.
-ParameterSpec Start(const std::string& name, double initial) {
-  ParameterSpec spec;
-  spec.name = name;
-  spec.initial = initial;
-  return spec;
-}
+using test_support::Start;
 
 // y = (a + b)·x: only the sum a + b moves a residual; r = y − (a + b)·x
 struct SumTimesX {

@@ -8,19 +8,14 @@
 #include <string>
 #include <vector>
 
+#include "core/parameter_start.h"
 #include "fitters/core/least_squares.h"
 #include "fitters/core/residual_statistics.h"
 
 namespace coilspin::core {
 namespace {
 
-// A parameter to estimate, starting at `initial`, no bounds.
-ParameterSpec Start(const std::string& name, double initial) {
-  ParameterSpec spec;
-  spec.name = name;
-  spec.initial = initial;
-  return spec;
-}
+using test_support::Start;
 
 // y = c; r = y − c
 struct Level {

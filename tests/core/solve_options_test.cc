@@ -6,18 +6,13 @@
 #include <cmath>
 #include <string>
 
+#include "core/parameter_start.h"
 #include "fitters/core/least_squares.h"
 
 namespace coilspin::core {
 namespace {
 
-// A parameter to estimate, starting at `initial`, no bounds.
-ParameterSpec Start(const std::string& name, double initial) {
-  ParameterSpec spec;
-  spec.name = name;
-  spec.initial = initial;
-  return spec;
-}
+using test_support::Start;
 
 // y = log(b·x); undefined for b·x ≤ 0, where the functor's value is NaN
 struct LogResidual {
