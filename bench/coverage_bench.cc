@@ -108,6 +108,7 @@ int main(int argc, char** argv) {
   const char* keys[] = {"resistance", "inductance", "brush_drop", "back_emf_constant",
                         "inertia", "viscous_friction", "coulomb_friction"};
   std::map<std::string, Tally> tally;
+  std::map<std::string, Tally> per_motor_tally;  // "motor / parameter"
   const auto start = std::chrono::steady_clock::now();
   int failures = 0;
   for (const Motor& m : motors) {
@@ -125,12 +126,14 @@ int main(int argc, char** argv) {
           ++failures;
           continue;
         }
-        Tally& t = tally[key];
         const double rel = (q->value - truth.at(key)) / truth.at(key);
-        ++t.fits;
-        t.sum += rel;
-        t.sum_sq += rel * rel;
-        if (q->ci_low <= truth.at(key) && truth.at(key) <= q->ci_high) ++t.covered;
+        const bool covered = q->ci_low <= truth.at(key) && truth.at(key) <= q->ci_high;
+        for (Tally* t : {&tally[key], &per_motor_tally[std::string(m.name) + " / " + key]}) {
+          ++t->fits;
+          t->sum += rel;
+          t->sum_sq += rel * rel;
+          if (covered) ++t->covered;
+        }
       }
     }
   }
@@ -142,6 +145,12 @@ int main(int argc, char** argv) {
     if (t.fits == 0) continue;
     const double mean = t.sum / t.fits;
     std::printf("| %s | %d | %.1f %% | %+.2e | %.2e |\n", key, t.fits, 100.0 * t.covered / t.fits, mean,
+                std::sqrt(std::max(0.0, t.sum_sq / t.fits - mean * mean)));
+  }
+  std::printf("\n| motor / parameter | fits | coverage | bias | spread |\n| --- | --- | --- | --- | --- |\n");
+  for (const auto& [name, t] : per_motor_tally) {
+    const double mean = t.sum / t.fits;
+    std::printf("| %s | %d | %.0f %% | %+.2e | %.2e |\n", name.c_str(), t.fits, 100.0 * t.covered / t.fits, mean,
                 std::sqrt(std::max(0.0, t.sum_sq / t.fits - mean * mean)));
   }
   std::printf("\n%d motors x %d benches, %d parameters not determined, %.1f s\n", 4, per_motor, failures, seconds);

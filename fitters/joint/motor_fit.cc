@@ -9,6 +9,7 @@
 #include "fitters/core/shared_parameters.h"
 #include "fitters/joint/consistency.h"
 #include "fitters/joint/derived.h"
+#include "fitters/locked_rotor/input_noise.h"
 #include "fitters/no_load/no_load_fit.h"
 #include "fitters/spin_down/spin_down_fit.h"
 #include "src/ingest/encoder_speed.h"
@@ -172,7 +173,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;
   solve.group_sigma_rounds = kGroupSigmaRounds;
-  const core::FitResult fit = problem.Solve(solve);
+  core::FitResult fit = problem.Solve(solve);
+  locked_rotor::AddVoltageNoiseCovariance(lr, parameters, &fit);
   e.solver.push_back(core::ToSolverSummary(fit));
 
   // 4. Each test reports its residuals (and the locked-rotor test its own notes).

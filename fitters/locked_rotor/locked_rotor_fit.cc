@@ -11,6 +11,7 @@
 #include "fitters/locked_rotor/capture.h"
 #include "fitters/locked_rotor/heating_drift.h"
 #include "fitters/locked_rotor/initial_estimates.h"
+#include "fitters/locked_rotor/input_noise.h"
 #include "fitters/locked_rotor/plateau_residual.h"
 #include "fitters/locked_rotor/step_residual.h"
 #include "src/units/constants.h"
@@ -28,6 +29,9 @@ constexpr double kMinResistance_ohm = 1e-9;
 constexpr double kMinInductance_H = 1e-12;
 // Rounds of noise re-estimation between logs (enough for the σ ratio to settle).
 constexpr int kGroupSigmaRounds = 3;
+// "At rest" is within this many noise σ of zero voltage and current (a Gaussian
+// sample falls outside 5 σ with a chance of 6·10⁻⁷).
+constexpr double kRestBandSigmas = 5.0;
 // Kt from a torque column needs this many plateaus (two unknowns, Kt and τ0, and one degree of freedom).
 constexpr std::size_t kMinTorquePlateaus = 3;
 
@@ -57,6 +61,13 @@ std::optional<double> LogTemperature(const BenchLog& log, const LockedRotorOptio
 }
 
 }  // namespace
+
+StepCurrentResidual StepResidualOf(const StepLog& sl) {
+  StepCurrentResidual residual{&sl.log->time_s, &sl.log->voltage_V, &sl.log->current_A, sl.factor, {}};
+  residual.rest.voltage_V = kRestBandSigmas * NoiseFromDifferences(sl.log->voltage_V);
+  residual.rest.current_A = kRestBandSigmas * sl.current_noise_A;
+  return residual;
+}
 
 bool LockedRotorOptions::IsValid(std::string* error) const {
   const double lowest = -units::kCopperTemperatureConstant_degC;
@@ -234,6 +245,8 @@ void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
   if (!plan->resistance_identified) return;
   core::LeastSquaresProblem& problem = parameters->problem();
   const int r = parameters->Ensure({"resistance", plan->resistance_start_ohm, 0.0, kMinResistance_ohm, {}, false});
+  // Vb ≥ 0: a contact drop cannot aid the current. (Heating that no temperature
+  // explains would otherwise hide in a negative Vb instead of showing as drift.)
   const int vb = parameters->Ensure({"brush_drop", plan->estimate_brush_drop ? plan->brush_drop_start_V : 0.0,
                                      plan->brush_drop_scale_V, 0.0, {}, !plan->estimate_brush_drop});
   parameters->Use("resistance", kTest);
@@ -285,8 +298,7 @@ void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
     const int i0 = parameters->Ensure({"initial_current_" + std::to_string(s), sl.initial_current_A,
                                        peak_A > 0.0 ? peak_A : 1.0, {}, {}, false});
     sl.group = problem.AddGroup({sl.log->path + " step current", sl.current_noise_A > 0.0 ? sl.current_noise_A : 1.0});
-    problem.AddResiduals(sl.group, {r, l, vb, i0}, static_cast<int>(sl.log->size()),
-                         StepCurrentResidual{&sl.log->time_s, &sl.log->voltage_V, &sl.log->current_A, sl.factor});
+    problem.AddResiduals(sl.group, {r, l, vb, i0}, static_cast<int>(sl.log->size()), StepResidualOf(sl));
   }
 }
 
@@ -385,7 +397,8 @@ MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const Loc
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;
   solve.group_sigma_rounds = kGroupSigmaRounds;
-  const core::FitResult fit = problem.Solve(solve);
+  core::FitResult fit = problem.Solve(solve);
+  AddVoltageNoiseCovariance(plan, parameters, &fit);
   estimate.solver.push_back(core::ToSolverSummary(fit));
   ReportLockedRotor(plan, fit, &estimate);
   if (fit.usable) core::CopyCovariance(fit, LockedRotorParameterNames(plan), &estimate);

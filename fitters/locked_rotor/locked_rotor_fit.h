@@ -32,6 +32,7 @@
 #include "fitters/core/motor_estimate.h"
 #include "fitters/core/shared_parameters.h"
 #include "fitters/locked_rotor/capture.h"
+#include "fitters/locked_rotor/step_residual.h"
 #include "src/ingest/bench_log.h"
 #include "src/ingest/segmentation.h"
 
@@ -95,6 +96,9 @@ void ReportLockedRotor(const LockedRotorPlan& plan, const core::FitResult& fit, 
 
 // The parameters this plan estimated, in covariance order.
 std::vector<std::string> LockedRotorParameterNames(const LockedRotorPlan& plan);
+
+// The step residual of a capture, with its rest noise bands.
+StepCurrentResidual StepResidualOf(const StepLog& step);
 
 // Locked-rotor logs on their own: plan, add, solve, report.
 MotorEstimate FitLockedRotor(const std::vector<const BenchLog*>& logs, const LockedRotorOptions& options);

@@ -38,17 +38,28 @@ T FlowingDrive(double voltage_V, const T& current_A, const T& brush_drop_V) {
 // τ = L/R; a crossing under drive u happens at t* = τ·ln(1 − R·î/u). After it
 // the current restarts from rest under the from-rest rule (or stays at zero
 // when |v| ≤ Vb).
+//
+// At rest within the noise (|v| and |î| both inside their noise bands, as
+// before a step) the drive is v itself: applying the brush rule there would
+// let Vb "explain" the logged voltage's noise and bias Vb and R.
+struct RestBand {
+  double voltage_V = 0.0;
+  double current_A = 0.0;
+};
+
 template <typename T>
 T Advance(double interval_s, double voltage_V, const T& current_A, const T& resistance_ohm, const T& inductance_H,
-          const T& brush_drop_V) {
+          const T& brush_drop_V, const RestBand& rest = {}) {
   using std::exp;
   using std::log;
+  using std::abs;
   const T tau_s = inductance_H / resistance_ohm;
-  const T drive_V = FlowingDrive(voltage_V, current_A, brush_drop_V);
+  const bool at_rest = std::fabs(voltage_V) <= rest.voltage_V && abs(current_A) <= T(rest.current_A);
+  const T drive_V = at_rest ? T(voltage_V) : FlowingDrive(voltage_V, current_A, brush_drop_V);
   const T a = exp(-interval_s / tau_s);
   const T next_A = a * current_A + (1.0 - a) * drive_V / resistance_ohm;
   const bool crosses = (current_A > 0.0 && next_A < 0.0) || (current_A < 0.0 && next_A > 0.0);
-  if (!crosses) return next_A;
+  if (!crosses || at_rest) return next_A;
   const T crossing_s = tau_s * log(1.0 - resistance_ohm * current_A / drive_V);  // t*
   const T rest_drive_V = DriveVoltage(voltage_V, brush_drop_V);
   return (1.0 - exp(-(interval_s - crossing_s) / tau_s)) * rest_drive_V / resistance_ohm;
@@ -59,6 +70,7 @@ struct StepCurrentResidual {
   const std::vector<double>* voltage_V;
   const std::vector<double>* current_A;
   double temperature_factor = 1.0;  // f = (k + θ)/(k + θ_ref), 1 when unknown
+  RestBand rest;                    // noise bands of v and i around zero
 
   // p[0] = R at θ_ref [ohm], p[1] = L [H], p[2] = Vb [V], p[3] = i0 [A]
   template <typename T>
@@ -75,7 +87,8 @@ struct StepCurrentResidual {
     for (std::size_t k = 0; k < n; ++k) {
       residual[k] = i[k] - modelled_current_A;  // r_k = i_k − î_k
       if (k + 1 == n) break;
-      modelled_current_A = Advance(t[k + 1] - t[k], v[k], modelled_current_A, resistance_ohm, inductance_H, brush_drop_V);
+      modelled_current_A =
+          Advance(t[k + 1] - t[k], v[k], modelled_current_A, resistance_ohm, inductance_H, brush_drop_V, rest);
     }
     return true;
   }

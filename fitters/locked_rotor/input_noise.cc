@@ -1,0 +1,90 @@
+#include "fitters/locked_rotor/input_noise.h"
+
+#include <ceres/jet.h>
+
+#include <Eigen/Dense>
+#include <cmath>
+#include <string>
+#include <vector>
+
+#include "fitters/locked_rotor/step_residual.h"
+#include "src/ingest/segmentation.h"
+
+namespace coilspin::locked_rotor {
+namespace {
+
+constexpr int kStepParameters = 4;  // R, L, Vb, i0 (the functor's order)
+using Jet = ceres::Jet<double, kStepParameters>;
+
+// ∂r_k/∂(R, L, Vb, i0) of one step capture at the solution, by automatic differentiation.
+Eigen::MatrixXd StepJacobian(const StepCurrentResidual& residual, const double values[kStepParameters]) {
+  const std::size_t n = residual.time_s->size();
+  Jet p[kStepParameters];
+  const Jet* pointers[kStepParameters];
+  for (int j = 0; j < kStepParameters; ++j) {
+    p[j] = Jet(values[j], j);
+    pointers[j] = &p[j];
+  }
+  std::vector<Jet> r(n);
+  residual(pointers, r.data());
+  Eigen::MatrixXd jacobian(n, kStepParameters);
+  for (std::size_t k = 0; k < n; ++k)
+    for (int j = 0; j < kStepParameters; ++j) jacobian(static_cast<Eigen::Index>(k), j) = r[k].v[j];
+  return jacobian;
+}
+
+}  // namespace
+
+void AddVoltageNoiseCovariance(const LockedRotorPlan& plan, const core::SharedParameters& parameters,
+                               core::FitResult* fit) {
+  if (!fit->usable) return;
+  const Eigen::Index p = fit->covariance.rows();
+  Eigen::MatrixXd extra = Eigen::MatrixXd::Zero(p, p);
+  for (std::size_t s = 0; s < plan.step_logs.size(); ++s) {
+    const StepLog& sl = plan.step_logs[s];
+    const int index[kStepParameters] = {parameters.Index("resistance"), parameters.Index("inductance"),
+                                        parameters.Index("brush_drop"),
+                                        parameters.Index("initial_current_" + std::to_string(s))};
+    double values[kStepParameters];
+    for (int j = 0; j < kStepParameters; ++j) values[j] = fit->parameters[index[j]].value;
+    const StepCurrentResidual residual = StepResidualOf(sl);
+    const Eigen::MatrixXd jacobian = StepJacobian(residual, values);
+    const double sigma_i = fit->groups[sl.group].sigma;
+    const double sigma_v = NoiseFromDifferences(sl.log->voltage_V);
+    if (!(sigma_v > 0.0) || !(sigma_i > 0.0)) continue;
+    const double r_ohm = values[0] * sl.factor, l_H = values[1], vb_V = values[2];
+    const std::vector<double>& t = sl.log->time_s;
+    const std::vector<double>& v = sl.log->voltage_V;
+    const std::size_t n = t.size();
+    // Backward pass: S_m = J_{m+1} + a_{m+1}·S_{m+1};  U_m = c_m·S_m/σ_i²
+    Eigen::MatrixXd u = Eigen::MatrixXd::Zero(kStepParameters, static_cast<Eigen::Index>(n));
+    Eigen::Matrix<double, kStepParameters, 1> sum = Eigen::Matrix<double, kStepParameters, 1>::Zero();
+    for (std::size_t m = n - 1; m-- > 0;) {
+      const double a_next = m + 2 < n ? std::exp(-(t[m + 2] - t[m + 1]) * r_ohm / l_H) : 0.0;
+      sum = jacobian.row(static_cast<Eigen::Index>(m + 1)).transpose() + a_next * sum;
+      const double a_m = std::exp(-(t[m + 1] - t[m]) * r_ohm / l_H);
+      const double c_m = std::fabs(v[m]) > vb_V ? (1.0 - a_m) / r_ohm : 0.0;
+      u.col(static_cast<Eigen::Index>(m)) = c_m * sum / (sigma_i * sigma_i);
+    }
+    Eigen::MatrixXd cov_columns(p, kStepParameters);
+    for (int j = 0; j < kStepParameters; ++j) cov_columns.col(j) = fit->covariance.col(index[j]);
+    const Eigen::MatrixXd g = cov_columns * u;  // Cov·U
+    extra += sigma_v * sigma_v * g * g.transpose();
+  }
+  fit->covariance += extra;
+  for (Eigen::Index j = 0; j < p; ++j) {
+    core::ParameterEstimate& e = fit->parameters[j];
+    if (e.fixed || !(e.std_error > 0.0)) continue;
+    const double quantile = (e.ci_high - e.value) / e.std_error;  // t at the same degrees of freedom
+    e.std_error = std::sqrt(fit->covariance(j, j));
+    e.ci_low = e.value - quantile * e.std_error;
+    e.ci_high = e.value + quantile * e.std_error;
+  }
+  for (Eigen::Index a = 0; a < p; ++a)
+    for (Eigen::Index b = 0; b < p; ++b) {
+      const double scale = std::sqrt(fit->covariance(a, a) * fit->covariance(b, b));
+      fit->correlation(a, b) = scale > 0.0 ? fit->covariance(a, b) / scale : 0.0;
+    }
+}
+
+}  // namespace coilspin::locked_rotor
