@@ -43,6 +43,9 @@ struct TestSummary {
   std::string method;   // how the fitter used the log, in words
   std::vector<ChannelResidual> residuals;
   std::vector<std::string> warnings;
+  // Per estimated parameter: this test's share of its information (variance
+  // contribution, core::GroupStatistics::information_share), summing to 1 over tests.
+  std::vector<std::pair<std::string, double>> information_share;
 };
 
 struct SolverSummary {

@@ -34,7 +34,7 @@ bool Has(const MotorEstimate& e, const std::string& key) {
 // Why a model parameter is undetermined when no test of the set informs it.
 void AddMissingReasons(MotorEstimate* e) {
   const std::pair<const char*, const char*> reasons[] = {
-      {"resistance", "needs a locked-rotor or no-load test"},
+      {"resistance", "needs a locked-rotor test"},
       {"inductance", "needs a locked-rotor step capture"},
       {"back_emf_constant", "needs a no-load test, or a spin-down with the terminal voltage logged"},
       {"torque_constant", "needs a torque column in a locked-rotor log, or a back-EMF measurement to assume Kt = Ke"},
@@ -76,6 +76,44 @@ constexpr double kNoLoadSettleFraction = 0.5;
 PlateauOptions NoLoadPlateauOptions(PlateauOptions options) {
   options.settle_fraction = std::max(options.settle_fraction, kNoLoadSettleFraction);
   return options;
+}
+
+// Above this |ρ| two parameters are nearly one direction for the data.
+constexpr double kStrongCorrelation = 0.99;
+
+// Each test's share of each estimated parameter's information.
+void AddInformationShares(const locked_rotor::LockedRotorPlan& lr, const no_load::NoLoadPlan& nl,
+                          const spin_down::SpinDownPlan& sd, const core::SharedParameters& parameters,
+                          const core::FitResult& fit, MotorEstimate* e) {
+  std::vector<std::pair<std::size_t, int>> groups;  // (test summary, residual group)
+  for (std::size_t k = 0; k < lr.plateau_logs.size(); ++k)
+    for (int g : {lr.plateau_logs[k].voltage_group, lr.plateau_logs[k].torque_group}) groups.push_back({lr.summary_index[k], g});
+  for (std::size_t s = 0; s < lr.step_logs.size(); ++s)
+    groups.push_back({lr.summary_index[lr.plateau_logs.size() + s], lr.step_logs[s].group});
+  for (std::size_t k = 0; k < nl.logs.size(); ++k)
+    for (int g : {nl.logs[k].voltage_group, nl.logs[k].current_group}) groups.push_back({nl.summary_index[k], g});
+  for (const auto& c : sd.logs)
+    for (int g : {c.motion_group, c.voltage_group}) groups.push_back({c.summary, g});
+  for (const auto& key : e->correlation_names) {
+    const int index = parameters.Index(key);
+    std::vector<double> share(e->tests.size(), 0.0);
+    for (const auto& [summary, g] : groups)
+      if (g >= 0) share[summary] += fit.groups[g].information_share[index];
+    for (std::size_t t = 0; t < e->tests.size(); ++t)
+      if (share[t] > 0.0) e->tests[t].information_share.push_back({key, share[t]});
+  }
+}
+
+// Near-singular directions: pairs of parameters the tests barely tell apart.
+void WarnStrongCorrelations(MotorEstimate* e) {
+  const auto& names = e->correlation_names;
+  for (std::size_t a = 0; a < names.size(); ++a)
+    for (std::size_t b = a + 1; b < names.size(); ++b)
+      if (std::fabs(e->correlation[a][b]) > kStrongCorrelation)
+        e->warnings.push_back(names[a] + " and " + names[b] + " are nearly inseparable in these tests (correlation " +
+                              Format("%.4f", e->correlation[a][b]) +
+                              "): their intervals are wide for that reason; a test that moves one without the "
+                              "other would separate them");
 }
 
 }  // namespace
@@ -220,6 +258,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     e.parameters.push_back(kt);
   }
   core::CopyCovariance(fit, covariance_names, &e);
+  AddInformationShares(lr, nl, sd, parameters, fit, &e);
+  WarnStrongCorrelations(&e);
 
   // 6. Ratios the coast determines on its own.
   if (sd.usable) {

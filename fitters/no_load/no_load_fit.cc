@@ -15,7 +15,6 @@ constexpr const char* kTest = "no-load";
 // A plateau's speed must exceed this many noise σ to count as turning.
 constexpr double kTurningSpeedSigmas = 5.0;
 constexpr std::size_t kMinBackEmfPlateaus = 2;
-constexpr std::size_t kMinBackEmfPlateausWithResistance = 3;
 constexpr std::size_t kMinFrictionPlateaus = 3;
 constexpr double kMinResistance_ohm = 1e-9;
 
@@ -57,40 +56,39 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
     estimate->tests.push_back({kTest, logs[k]->path, static_cast<long>(logs[k]->size()),
                                "plateaus: " + std::to_string(nl.plateaus.size()) + " settled levels turning; speed: " +
                                    speeds[k].method,
-                               {}, {}});
+                               {}, {}, {}});
     plan.logs.push_back(nl);
   }
-  plan.back_emf_identified =
-      plan.plateau_count >= (plan.resistance_from_here ? kMinBackEmfPlateausWithResistance : kMinBackEmfPlateaus);
+  if (plan.resistance_from_here) {
+    // Under the model the plateau currents follow speed, ī = (B·ω̄ + Tc)/Kt, so
+    // R·ī + Vb is itself affine in ω̄: the voltage equation fixes only
+    // Ke + R·B/Kt and R·Tc/Kt + Vb. Fitting R anyway gives a number set by
+    // noise with an interval that does not show it.
+    estimate->not_identified.push_back(
+        {"back_emf_constant", "no-load plateaus alone fix only Ke + R·B/Kt (the current follows speed through "
+                              "friction); Ke needs R from a locked-rotor test, or the coast voltage of a spin-down"});
+    return plan;
+  }
+  plan.back_emf_identified = plan.plateau_count >= kMinBackEmfPlateaus;
   plan.friction_identified = plan.back_emf_identified && plan.plateau_count >= kMinFrictionPlateaus;
   if (!plan.back_emf_identified) {
     estimate->not_identified.push_back(
-        {"back_emf_constant", "needs no-load plateaus at " +
-                                  std::to_string(plan.resistance_from_here ? kMinBackEmfPlateausWithResistance
-                                                                           : kMinBackEmfPlateaus) +
+        {"back_emf_constant", "needs no-load plateaus at " + std::to_string(kMinBackEmfPlateaus) +
                                   " or more supply levels with the shaft turning; found " +
                                   std::to_string(plan.plateau_count)});
     return plan;
   }
 
-  // Closed-form start:  v̄ − Vb·sgn(ī) = R·ī + Ke·ω̄  (R known: Ke alone), then
-  // Ke·ī = B·ω̄ + Tc·sgn(ω̄)  with Kt = Ke.
+  // Closed-form start:  v̄ − R·f·ī − Vb·sgn(ī) = Ke·ω̄, then Ke·ī = B·ω̄ + Tc·sgn(ω̄)  (Kt = Ke).
   const int n = static_cast<int>(plan.plateau_count);
-  const int unknowns = plan.resistance_from_here ? 2 : 1;
-  Eigen::MatrixXd x(n, unknowns), friction(n, 2);
+  Eigen::MatrixXd x(n, 1), friction(n, 2);
   Eigen::VectorXd y(n), current(n);
   int row = 0;
   for (const auto& nl : plan.logs) {
     for (const auto& p : nl.plateaus) {
-      const double vb_V = plan.resistance_from_here ? 0.0 : brush_drop_V * Sign(p.mean_current_A);
-      if (plan.resistance_from_here) {
-        x(row, 0) = p.mean_speed_rad_s;
-        x(row, 1) = p.mean_current_A;
-        y(row) = p.mean_voltage_V - vb_V;
-      } else {
-        x(row, 0) = p.mean_speed_rad_s;
-        y(row) = p.mean_voltage_V - vb_V - *resistance_ohm * nl.temperature_factor * p.mean_current_A;
-      }
+      x(row, 0) = p.mean_speed_rad_s;
+      y(row) = p.mean_voltage_V - brush_drop_V * Sign(p.mean_current_A) -
+               *resistance_ohm * nl.temperature_factor * p.mean_current_A;
       friction(row, 0) = p.mean_speed_rad_s;
       friction(row, 1) = Sign(p.mean_speed_rad_s);
       current(row) = p.mean_current_A;
@@ -101,15 +99,11 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
   if (!electrical || !((*electrical)(0) > 0.0)) {
     plan.back_emf_identified = plan.friction_identified = false;
     estimate->not_identified.push_back(
-        {"back_emf_constant", "the no-load plateaus do not separate Ke from R (speed and current move together)"});
+        {"back_emf_constant", "the no-load plateaus give no positive back-EMF slope (speed does not rise with voltage)"});
     return plan;
   }
   plan.back_emf_start = (*electrical)(0);
-  if (plan.resistance_from_here)
-    estimate->warnings.push_back(
-        "resistance from no-load plateaus alone: the currents change only through friction, so R is poorly "
-        "determined, and it absorbs any brush drop (held at 0 V); add a locked-rotor test");
-  plan.resistance_start_ohm = plan.resistance_from_here ? std::max((*electrical)(1), kMinResistance_ohm) : *resistance_ohm;
+  plan.resistance_start_ohm = *resistance_ohm;
   if (plan.friction_identified) {
     const auto f = Solve(friction, plan.back_emf_start * current);
     plan.viscous_start = f ? std::max((*f)(0), 0.0) : 0.0;

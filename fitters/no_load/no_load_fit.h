@@ -2,15 +2,14 @@
 // The no-load fitter: Ke, and friction B, Tc relative to Kt, from settled
 // free-shaft plateaus at several supply levels (no_load_residual.h).
 //
-// R and Vb are shared with the locked-rotor test when one is given. With
-// no-load logs alone R is fitted too: the plateau currents change only through
-// friction, so R is poorly determined and its interval shows it; Vb is then
-// held at 0 (it cannot be told from R·ī, which barely varies).
+// R and Vb come from the locked-rotor test, shared in the same problem. With
+// no-load logs alone Ke is not identified: the plateau currents follow speed
+// through friction, so the voltage equation fixes only Ke + R·B/Kt.
 // Friction needs Kt: measured (a locked-rotor torque column) or taken equal to
 // Ke in SI units; the caller decides which parameter plays Kt.
 //
-// Identifiability: Ke needs 2 plateaus with speed (3 when R is fitted here);
-// B and Tc need 3 (two unknowns and a degree of freedom).
+// Identifiability: Ke needs 2 plateaus with speed; B and Tc need 3 (two
+// unknowns and a degree of freedom).
 
 #include <optional>
 #include <string>
@@ -51,7 +50,7 @@ struct NoLoadLog {
 struct NoLoadPlan {
   std::vector<NoLoadLog> logs;
   std::size_t plateau_count = 0;
-  bool resistance_from_here = false;  // no locked-rotor test: R is fitted from these plateaus
+  bool resistance_from_here = false;  // no locked-rotor R: Ke is then not identified
   bool back_emf_identified = false;
   bool friction_identified = false;
   double back_emf_start = 0.0;

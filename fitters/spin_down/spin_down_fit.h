@@ -27,6 +27,7 @@ namespace coilspin::spin_down {
 
 struct CoastLog {
   const BenchLog* log = nullptr;
+  std::size_t summary = 0;            // index of its TestSummary
   std::size_t power_off = 0;
   std::size_t rest = 0;
   double direction = 1.0;             // sgn of the speed at power-off; data are flipped to turn forward

@@ -46,6 +46,9 @@ Json TestJson(const TestSummary& t) {
   j["noise_sigma"] = sigma;
   j["residual_lag1_autocorrelation"] = lag1;
   j["residuals_used"] = used;
+  Json share = Json::object();
+  for (const auto& [key, value] : t.information_share) share[key] = value;
+  j["information_share"] = share;
   j["warnings"] = t.warnings;
   return j;
 }

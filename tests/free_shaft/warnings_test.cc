@@ -57,3 +57,28 @@ TEST(FreeShaftWarnings, GearboxIsNamed) {
 
 }  // namespace
 }  // namespace coilspin::testing
+
+namespace coilspin::testing {
+namespace {
+
+// Each parameter's information shares over the tests sum to 1 (they split
+// Var(θ_j) = Σ_g v_gj by residual group; fitters/core/least_squares.h).
+TEST(InformationShare, SplitsEachParameterOverTheTests) {
+  BenchOptions o;
+  o.seed = 64;
+  const MotorEstimate e = joint::FitMotor(SimulateBench(Motor(), 12.0, o), {});
+  ASSERT_FALSE(e.correlation_names.empty());
+  for (const auto& key : e.correlation_names) {
+    double total = 0.0;
+    for (const auto& t : e.tests)
+      for (const auto& [k, share] : t.information_share)
+        if (k == key) total += share;
+    EXPECT_NEAR(total, 1.0, 1e-9) << key;
+  }
+  // Inertia is informed by the coast (B/J, Tc/J) and the no-load friction, never by locked-rotor plateaus alone.
+  for (const auto& [k, share] : e.tests.front().information_share)
+    if (k == "inertia") EXPECT_LT(share, 0.05);
+}
+
+}  // namespace
+}  // namespace coilspin::testing
