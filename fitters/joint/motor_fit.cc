@@ -167,18 +167,19 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   lr_options.confidence = options.confidence;
   locked_rotor::LockedRotorPlan lr;
   if (!locked.empty()) lr = locked_rotor::PlanLockedRotor(locked, lr_options, &e);
-  no_load::NoLoadPlan nl;
-  if (!free_plateaus.empty())
-    nl = no_load::PlanNoLoad(free_plateaus, speeds,
-                             lr.resistance_identified ? std::optional<double>(lr.resistance_start_ohm) : std::nullopt,
-                             lr.brush_drop_start_V, {lr.reference_degC, lr_options.winding_temperature_degC},
-                             NoLoadPlateauOptions(lr_options.plateaus), &e);
   spin_down::SpinDownPlan sd;
   if (!coasts.empty()) {
     std::optional<double> step_rad;
     if (options.counts_per_rev) step_rad = units::kRadiansPerRevolution * options.gear_ratio / *options.counts_per_rev;
     sd = spin_down::PlanSpinDown(coasts, step_rad, &e);
   }
+  no_load::NoLoadPlan nl;
+  if (!free_plateaus.empty())
+    nl = no_load::PlanNoLoad(free_plateaus, speeds,
+                             lr.resistance_identified ? std::optional<double>(lr.resistance_start_ohm) : std::nullopt,
+                             lr.brush_drop_start_V, {lr.reference_degC, lr_options.winding_temperature_degC},
+                             sd.measures_back_emf ? std::optional<double>(sd.back_emf_start) : std::nullopt,
+                             NoLoadPlateauOptions(lr_options.plateaus), &e);
 
   // 2. The mechanical basis.
   const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf;

@@ -31,7 +31,8 @@ std::optional<Eigen::VectorXd> Solve(const Eigen::MatrixXd& x, const Eigen::Vect
 
 NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vector<SpeedTrace>& speeds,
                       std::optional<double> resistance_ohm, double brush_drop_V, const NoLoadTemperatures& temperatures,
-                      const PlateauOptions& options, MotorEstimate* estimate) {
+                      std::optional<double> back_emf_elsewhere, const PlateauOptions& options,
+                      MotorEstimate* estimate) {
   NoLoadPlan plan;
   plan.resistance_from_here = !resistance_ohm.has_value();
   for (std::size_t k = 0; k < logs.size(); ++k) {
@@ -59,6 +60,31 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
                                {}, {}, {}});
     plan.logs.push_back(nl);
   }
+  // Friction start: Kt·ī = B·ω̄ + Tc·sgn(ω̄) by least squares, with Kt = Ke at its start.
+  const auto start_friction = [&plan]() {
+    const int n = static_cast<int>(plan.plateau_count);
+    Eigen::MatrixXd friction(n, 2);
+    Eigen::VectorXd torque(n);
+    int row = 0;
+    for (const auto& nl : plan.logs)
+      for (const auto& p : nl.plateaus) {
+        friction(row, 0) = p.mean_speed_rad_s;
+        friction(row, 1) = Sign(p.mean_speed_rad_s);
+        torque(row) = plan.back_emf_start * p.mean_current_A;
+        ++row;
+      }
+    const auto f = Solve(friction, torque);
+    plan.viscous_start = f ? std::max((*f)(0), 0.0) : 0.0;
+    plan.coulomb_start = f ? std::max((*f)(1), 0.0) : 0.0;
+  };
+  if (plan.resistance_from_here && back_emf_elsewhere) {
+    // No R for the voltage equation, but Ke (hence Kt = Ke) comes from another
+    // test: the plateaus still give friction through Kt·ī = B·ω̄ + Tc.
+    plan.back_emf_start = *back_emf_elsewhere;
+    plan.friction_identified = plan.plateau_count >= kMinFrictionPlateaus;
+    if (plan.friction_identified) start_friction();
+    return plan;
+  }
   if (plan.resistance_from_here) {
     // Under the model the plateau currents follow speed, ī = (B·ω̄ + Tc)/Kt, so
     // R·ī + Vb is itself affine in ω̄: the voltage equation fixes only
@@ -79,19 +105,16 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
     return plan;
   }
 
-  // Closed-form start:  v̄ − R·f·ī − Vb·sgn(ī) = Ke·ω̄, then Ke·ī = B·ω̄ + Tc·sgn(ω̄)  (Kt = Ke).
+  // Closed-form start:  v̄ − R·f·ī − Vb·sgn(ī) = Ke·ω̄.
   const int n = static_cast<int>(plan.plateau_count);
-  Eigen::MatrixXd x(n, 1), friction(n, 2);
-  Eigen::VectorXd y(n), current(n);
+  Eigen::MatrixXd x(n, 1);
+  Eigen::VectorXd y(n);
   int row = 0;
   for (const auto& nl : plan.logs) {
     for (const auto& p : nl.plateaus) {
       x(row, 0) = p.mean_speed_rad_s;
       y(row) = p.mean_voltage_V - brush_drop_V * Sign(p.mean_current_A) -
                *resistance_ohm * nl.temperature_factor * p.mean_current_A;
-      friction(row, 0) = p.mean_speed_rad_s;
-      friction(row, 1) = Sign(p.mean_speed_rad_s);
-      current(row) = p.mean_current_A;
       ++row;
     }
   }
@@ -104,22 +127,21 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
   }
   plan.back_emf_start = (*electrical)(0);
   plan.resistance_start_ohm = *resistance_ohm;
-  if (plan.friction_identified) {
-    const auto f = Solve(friction, plan.back_emf_start * current);
-    plan.viscous_start = f ? std::max((*f)(0), 0.0) : 0.0;
-    plan.coulomb_start = f ? std::max((*f)(1), 0.0) : 0.0;
-  }
+  if (plan.friction_identified) start_friction();
   return plan;
 }
 
 void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::SharedParameters* parameters) {
-  if (!plan->back_emf_identified) return;
+  if (!plan->back_emf_identified && !plan->friction_identified) return;
   core::LeastSquaresProblem& problem = parameters->problem();
-  const int r = parameters->Ensure({"resistance", plan->resistance_start_ohm, 0.0, kMinResistance_ohm, {}, false});
-  const int vb = parameters->Ensure({"brush_drop", 0.0, 1.0, 0.0, {}, true});  // held at 0 without a locked-rotor test
-  const int ke = parameters->Ensure({"back_emf_constant", plan->back_emf_start, 0.0, 0.0, {}, false});
-  parameters->Use("resistance", kTest);
-  parameters->Use("back_emf_constant", kTest);
+  int r = -1, vb = -1, ke = -1;
+  if (plan->back_emf_identified) {
+    r = parameters->Ensure({"resistance", plan->resistance_start_ohm, 0.0, kMinResistance_ohm, {}, false});
+    vb = parameters->Ensure({"brush_drop", 0.0, 1.0, 0.0, {}, true});
+    ke = parameters->Ensure({"back_emf_constant", plan->back_emf_start, 0.0, 0.0, {}, false});
+    parameters->Use("resistance", kTest);
+    parameters->Use("back_emf_constant", kTest);
+  }
   int kt = -1, b = -1, tc = -1;
   if (plan->friction_identified) {
     kt = parameters->Ensure({torque_constant_name, plan->back_emf_start, 0.0, 0.0, {}, false});
@@ -154,8 +176,10 @@ void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::
       sigma_A = std::max(sigma_A, p.current_std_A / root_n);
     }
     const int count = static_cast<int>(nl.plateaus.size());
-    nl.voltage_group = problem.AddGroup({nl.log->path + " no-load voltage", sigma_V > 0.0 ? sigma_V : 1.0});
-    problem.AddResiduals(nl.voltage_group, {r, vb, ke}, count, voltage);
+    if (plan->back_emf_identified) {
+      nl.voltage_group = problem.AddGroup({nl.log->path + " no-load voltage", sigma_V > 0.0 ? sigma_V : 1.0});
+      problem.AddResiduals(nl.voltage_group, {r, vb, ke}, count, voltage);
+    }
     if (plan->friction_identified) {
       nl.current_group = problem.AddGroup({nl.log->path + " no-load current", sigma_A > 0.0 ? sigma_A : 1.0});
       problem.AddResiduals(nl.current_group, {kt, b, tc}, count, current);

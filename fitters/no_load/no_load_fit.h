@@ -67,10 +67,13 @@ struct NoLoadTemperatures {
   std::optional<double> winding_degC;
 };
 
-// resistance_ohm / brush_drop_V: starting values from a locked-rotor plan, when there is one.
+// resistance_ohm / brush_drop_V: starting values from a locked-rotor plan, when
+// there is one. back_emf_elsewhere: a Ke start from another test (a coast
+// voltage); without R the plateaus then still give friction, through Kt = Ke.
 NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vector<SpeedTrace>& speeds,
                       std::optional<double> resistance_ohm, double brush_drop_V, const NoLoadTemperatures& temperatures,
-                      const PlateauOptions& options, MotorEstimate* estimate);
+                      std::optional<double> back_emf_elsewhere, const PlateauOptions& options,
+                      MotorEstimate* estimate);
 
 // torque_constant_name: "torque_constant" when Kt is measured, "back_emf_constant" when Kt = Ke.
 void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::SharedParameters* parameters);

@@ -100,6 +100,8 @@ SpinDownPlan PlanSpinDown(const std::vector<const BenchLog*>& logs, std::optiona
                                    : "logged speed fitted") +
                      (c.voltage_V.empty() ? "" : "; terminal voltage fitted as back-EMF");
     for (const auto& message : CheckCoast(*log, speed, *segment).messages) warn(message);
+    if (!c.voltage_V.empty() && !plan.measures_back_emf && c.speed_start_rad_s > 0.0)
+      plan.back_emf_start = c.voltage_V.front() / c.speed_start_rad_s;  // v = Ke·ω at power-off
     plan.measures_back_emf = plan.measures_back_emf || !c.voltage_V.empty();
     plan.logs.push_back(std::move(c));
   }

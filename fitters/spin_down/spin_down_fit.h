@@ -46,6 +46,7 @@ struct SpinDownPlan {
   std::vector<CoastLog> logs;
   bool usable = false;
   bool measures_back_emf = false;     // a coast voltage was logged
+  double back_emf_start = 0.0;        // Ke ≈ v/ω at power-off, when it was
   double viscous_over_inertia_start = 0.0;  // b
   double coulomb_over_inertia_start = 0.0;  // c
   std::vector<std::size_t> summary_index;

@@ -82,3 +82,27 @@ TEST(InformationShare, SplitsEachParameterOverTheTests) {
 
 }  // namespace
 }  // namespace coilspin::testing
+
+namespace coilspin::testing {
+namespace {
+
+// Without a locked-rotor test, no-load plateaus alone leave Ke undetermined
+// (ī follows ω through friction, so only Ke + R·B/Kt is fixed); with a coast
+// voltage giving Ke, the same plateaus still give B and Tc, and the coast J.
+TEST(NoLoadWithoutResistance, KeNeedsAnotherTestAndThenFrictionFollows) {
+  BenchOptions o;
+  o.locked_rotor = o.spin_down = false;
+  o.seed = 65;
+  const MotorEstimate alone = joint::FitMotor(SimulateBench(Motor(), 12.0, o), {});
+  EXPECT_EQ(alone.Find("back_emf_constant"), nullptr);
+  o.spin_down = true;
+  const MotorEstimate with_coast = joint::FitMotor(SimulateBench(Motor(), 12.0, o), {});
+  ASSERT_NE(with_coast.Find("back_emf_constant"), nullptr);
+  EXPECT_NEAR(with_coast.Find("back_emf_constant")->value, 0.03, 0.03 * 0.01);
+  ASSERT_NE(with_coast.Find("inertia"), nullptr);
+  EXPECT_NEAR(with_coast.Find("inertia")->value, 2e-5, 2e-5 * 0.03);
+  for (const auto& [key, reason] : with_coast.not_identified) EXPECT_NE(key, "back_emf_constant");
+}
+
+}  // namespace
+}  // namespace coilspin::testing
