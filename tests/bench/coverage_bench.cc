@@ -14,6 +14,7 @@
 #include <vector>
 
 #include "fitters/joint/motor_fit.h"
+#include "locked_rotor/simulated_bench.h"
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_spin_down.h"
@@ -41,17 +42,6 @@ model::MotorParameters Make(double r, double l, double k, double j, double b, do
   return m;
 }
 
-BenchLog ToLog(const model::SampledLog& s, const char* name) {
-  BenchLog log;
-  log.path = name;
-  log.time_s = s.time_s;
-  log.voltage_V = s.voltage_V;
-  log.current_A = s.current_A;
-  log.speed_rad_s = s.speed_rad_s;
-  log.position_rad = s.position_rad;
-  return log;
-}
-
 model::BenchConditions Noise(std::uint64_t seed, bool encoder, double scale) {
   model::BenchConditions b;
   b.voltage_noise_sigma_V = 5e-3 * scale;
@@ -68,25 +58,25 @@ std::vector<joint::TestLog> Bench(const Motor& m, std::uint64_t seed, double noi
   model::PlateauPlan lr;
   for (double f : {0.1, 0.2, 0.3, 0.4, -0.15, -0.3}) lr.supply_levels_V.push_back(f * m.top_V);
   lr.hold_s = 0.3;
-  logs.push_back({TestKind::kLockedRotor, ToLog(model::SimulateLockedRotorPlateaus(m.p, lr, Noise(seed, false, noise_scale)), "lr")});
+  logs.push_back({TestKind::kLockedRotor, testing::ToBenchLog(model::SimulateLockedRotorPlateaus(m.p, lr, Noise(seed, false, noise_scale)), "lr")});
   model::StepPlan st;
   st.supply_after_V = 0.2 * m.top_V;
   const double tau_s = m.p.inductance_H / m.p.resistance_ohm;
   st.sample_period_s = tau_s / 100.0;
   st.before_s = 10 * tau_s;
   st.after_s = 10 * tau_s;
-  logs.push_back({TestKind::kLockedRotor, ToLog(model::SimulateLockedRotorStep(m.p, st, Noise(seed + 1, false, noise_scale)), "step")});
+  logs.push_back({TestKind::kLockedRotor, testing::ToBenchLog(model::SimulateLockedRotorStep(m.p, st, Noise(seed + 1, false, noise_scale)), "step")});
   model::NoLoadPlan nl;
   for (double f : {0.25, 0.4, 0.55, 0.7, 0.85, 1.0}) nl.supply_levels_V.push_back(f * m.top_V);
   nl.hold_s = 1.0;
   nl.shaft = shaft;
-  logs.push_back({TestKind::kNoLoad, ToLog(model::SimulateNoLoad(m.p, nl, Noise(seed + 2, m.encoder, noise_scale)), "nl")});
+  logs.push_back({TestKind::kNoLoad, testing::ToBenchLog(model::SimulateNoLoad(m.p, nl, Noise(seed + 2, m.encoder, noise_scale)), "nl")});
   model::SpinDownPlan sd;
   sd.supply_V = m.top_V;
   sd.run_s = 1.0;
   sd.coast_s = 4.0;
   sd.shaft = shaft;
-  logs.push_back({TestKind::kSpinDown, ToLog(model::SimulateSpinDown(m.p, sd, Noise(seed + 3, m.encoder, noise_scale)), "sd")});
+  logs.push_back({TestKind::kSpinDown, testing::ToBenchLog(model::SimulateSpinDown(m.p, sd, Noise(seed + 3, m.encoder, noise_scale)), "sd")});
   return logs;
 }
 
