@@ -8,7 +8,6 @@
 #include <vector>
 
 #include "fitters/locked_rotor/step_residual.h"
-#include "src/ingest/segmentation.h"
 
 namespace coilspin::locked_rotor {
 namespace {
@@ -50,7 +49,7 @@ void AddVoltageNoiseCovariance(const LockedRotorPlan& plan, const core::SharedPa
     const StepCurrentResidual residual = StepResidualOf(sl);
     const Eigen::MatrixXd jacobian = StepJacobian(residual, values);
     const double sigma_i = fit->groups[sl.group].sigma;
-    const double sigma_v = NoiseFromDifferences(sl.log->voltage_V);
+    const double sigma_v = sl.voltage_noise_V;
     if (!(sigma_v > 0.0) || !(sigma_i > 0.0)) continue;
     const double r_ohm = values[0] * sl.factor, l_H = values[1], vb_V = values[2];
     const std::vector<double>& t = sl.log->time_s;

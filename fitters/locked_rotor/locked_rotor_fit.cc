@@ -64,7 +64,7 @@ std::optional<double> LogTemperature(const BenchLog& log, const LockedRotorOptio
 
 StepCurrentResidual StepResidualOf(const StepLog& sl) {
   StepCurrentResidual residual{&sl.log->time_s, &sl.log->voltage_V, &sl.log->current_A, sl.factor, {}};
-  residual.rest.voltage_V = kRestBandSigmas * NoiseFromDifferences(sl.log->voltage_V);
+  residual.rest.voltage_V = kRestBandSigmas * sl.voltage_noise_V;
   residual.rest.current_A = kRestBandSigmas * sl.current_noise_A;
   return residual;
 }
@@ -96,6 +96,7 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
       sl.log = log;
       sl.classification = c;
       sl.current_noise_A = NoiseFromDifferences(log->current_A);
+      sl.voltage_noise_V = NoiseFromDifferences(log->voltage_V);
       plan.step_logs.push_back(sl);
     } else {
       PlateauLog pl;

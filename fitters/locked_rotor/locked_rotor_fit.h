@@ -60,6 +60,7 @@ struct StepLog {
   CaptureClassification classification;
   double factor = 1.0;
   double current_noise_A = 0.0;
+  double voltage_noise_V = 0.0;   // σ_v of the logged voltage (first differences)
   double initial_current_A = 0.0;
   double inductance_start_H = 0.0;
   int group = -1;

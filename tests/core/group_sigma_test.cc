@@ -18,16 +18,7 @@ namespace {
 
 using test_support::Start;
 
-// y = a + b·x; r = y − (a + b·x)
-struct LineResidual {
-  double x;
-  double y;
-  template <typename T>
-  bool operator()(T const* const* p, T* r) const {
-    r[0] = y - (*p[0] + *p[1] * x);
-    return true;
-  }
-};
+using test_support::LineResidual;
 
 // z = c; r = z − c
 struct LevelResidual {

@@ -1,5 +1,6 @@
 #pragma once
-// Test helper: a parameter to estimate, starting at `initial`, no bounds.
+// Test helpers for the core: a parameter to estimate, starting at `initial`
+// with no bounds; the straight-line residual y = a + b·x.
 
 #include <string>
 
@@ -13,5 +14,16 @@ inline ParameterSpec Start(const std::string& name, double initial) {
   spec.initial = initial;
   return spec;
 }
+
+// y = a + b·x; r = y − (a + b·x)
+struct LineResidual {
+  double x;
+  double y;
+  template <typename T>
+  bool operator()(T const* const* p, T* r) const {
+    r[0] = y - (*p[0] + *p[1] * x);
+    return true;
+  }
+};
 
 }  // namespace coilspin::core::test_support

@@ -23,16 +23,7 @@ using test_support::Start;
 // Agreement demanded between the core and the closed form (relative).
 constexpr double kClosedFormAgreement = 1e-10;
 
-// y = a + b·x; r = y − (a + b·x)
-struct LineResidual {
-  double x;
-  double y;
-  template <typename T>
-  bool operator()(T const* const* p, T* r) const {
-    r[0] = y - (*p[0] + *p[1] * x);
-    return true;
-  }
-};
+using test_support::LineResidual;
 
 struct LineData {
   std::vector<double> x;
