@@ -12,6 +12,7 @@
 #include "fitters/locked_rotor/input_noise.h"
 #include "fitters/no_load/no_load_fit.h"
 #include "fitters/spin_down/spin_down_fit.h"
+#include "fitters/step/step_fit.h"
 #include "src/ingest/encoder_speed.h"
 #include "src/units/constants.h"
 #include "src/ingest/small_text_and_statistics.h"
@@ -35,16 +36,23 @@ bool Has(const MotorEstimate& e, const std::string& key) {
 void AddMissingReasons(MotorEstimate* e) {
   const std::pair<const char*, const char*> reasons[] = {
       {"resistance", "needs a locked-rotor test"},
-      {"inductance", "needs a locked-rotor step capture"},
-      {"back_emf_constant", "needs a no-load test, or a spin-down with the terminal voltage logged"},
+      {"inductance", "needs a locked-rotor step capture or a free-shaft step test"},
+      {"back_emf_constant", "needs a no-load test, a step test, or a spin-down with the terminal voltage logged"},
       {"torque_constant", "needs a torque column in a locked-rotor log, or a back-EMF measurement to assume Kt = Ke"},
-      {"inertia", "needs a spin-down test together with a no-load test (or --known-inertia)"},
-      {"viscous_friction", "needs a no-load test, or a spin-down with --known-inertia"},
-      {"coulomb_friction", "needs a no-load test, or a spin-down with --known-inertia"},
+      {"inertia", "needs a step test, or a spin-down test together with a no-load test (or --known-inertia)"},
+      {"viscous_friction", "needs a no-load or step test, or a spin-down with --known-inertia"},
+      {"coulomb_friction", "needs a no-load or step test, or a spin-down with --known-inertia"},
       {"brush_drop", "needs locked-rotor plateaus at 2 or more current levels"},
   };
   for (const auto& [key, reason] : reasons)
     if (!Has(*e, key)) e->not_identified.push_back({key, reason});
+}
+
+// A test's own report may have listed a parameter as not identified that another test determined.
+void DropAnsweredReasons(MotorEstimate* e) {
+  auto& list = e->not_identified;
+  list.erase(std::remove_if(list.begin(), list.end(), [&](const auto& entry) { return e->Find(entry.first) != nullptr; }),
+             list.end());
 }
 
 struct ParameterInfo {
@@ -83,7 +91,8 @@ constexpr double kStrongCorrelation = 0.99;
 
 // Each test's share of each estimated parameter's information.
 void AddInformationShares(const locked_rotor::LockedRotorPlan& lr, const no_load::NoLoadPlan& nl,
-                          const spin_down::SpinDownPlan& sd, const core::SharedParameters& parameters,
+                          const spin_down::SpinDownPlan& sd, const step::StepTestPlan& st,
+                          const core::SharedParameters& parameters,
                           const core::FitResult& fit, MotorEstimate* e) {
   std::vector<std::pair<std::size_t, int>> groups;  // (test summary, residual group)
   for (std::size_t k = 0; k < lr.plateau_logs.size(); ++k)
@@ -94,6 +103,8 @@ void AddInformationShares(const locked_rotor::LockedRotorPlan& lr, const no_load
     for (int g : {nl.logs[k].voltage_group, nl.logs[k].current_group}) groups.push_back({nl.summary_index[k], g});
   for (const auto& c : sd.logs)
     for (int g : {c.motion_group, c.voltage_group}) groups.push_back({c.summary, g});
+  for (const auto& s : st.logs)
+    for (int g : {s.current_group, s.motion_group}) groups.push_back({s.summary, g});
   for (const auto& key : e->correlation_names) {
     const int index = parameters.Index(key);
     std::vector<double> share(e->tests.size(), 0.0);
@@ -134,17 +145,18 @@ bool MotorFitOptions::IsValid(std::string* error) const {
   return locked_rotor.IsValid(error);
 }
 
-bool IsSupported(TestKind kind) { return kind != TestKind::kStep; }
+bool IsSupported(TestKind) { return true; }
 
 MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions& options) {
   MotorEstimate e;
   e.motor_label = options.motor_label;
   e.confidence = options.confidence;
-  std::vector<const BenchLog*> locked, free_plateaus, coasts;
+  std::vector<const BenchLog*> locked, free_plateaus, coasts, steps;
   for (const auto& t : tests) {
     if (t.kind == TestKind::kLockedRotor) locked.push_back(&t.log);
     if (t.kind == TestKind::kNoLoad) free_plateaus.push_back(&t.log);
     if (t.kind == TestKind::kSpinDown) coasts.push_back(&t.log);
+    if (t.kind == TestKind::kStep) steps.push_back(&t.log);
   }
 
   // Speed of no-load logs: the logged column, or derived from encoder position.
@@ -167,11 +179,16 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   lr_options.confidence = options.confidence;
   locked_rotor::LockedRotorPlan lr;
   if (!locked.empty()) lr = locked_rotor::PlanLockedRotor(locked, lr_options, &e);
+  std::optional<double> count_rad;  // one encoder count at the motor shaft
+  if (options.counts_per_rev) count_rad = units::kRadiansPerRevolution * options.gear_ratio / *options.counts_per_rev;
   spin_down::SpinDownPlan sd;
-  if (!coasts.empty()) {
-    std::optional<double> step_rad;
-    if (options.counts_per_rev) step_rad = units::kRadiansPerRevolution * options.gear_ratio / *options.counts_per_rev;
-    sd = spin_down::PlanSpinDown(coasts, step_rad, &e);
+  if (!coasts.empty()) sd = spin_down::PlanSpinDown(coasts, count_rad, &e);
+  step::StepTestPlan st;
+  if (!steps.empty()) {
+    const std::optional<double> reference_degC =
+        !locked.empty() ? lr.reference_degC : lr_options.reference_temperature_degC;
+    st = step::PlanStep(steps, count_rad, {reference_degC, lr_options.winding_temperature_degC},
+                        lr.brush_drop_start_V, &e);
   }
   no_load::NoLoadPlan nl;
   if (!free_plateaus.empty())
@@ -182,18 +199,23 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                              NoLoadPlateauOptions(lr_options.plateaus), &e);
 
   // 2. The mechanical basis.
-  const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf;
-  const bool kt_measured = lr.measures_torque_constant;
+  const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf || st.usable;
+  const bool inertia_known = options.known_inertia_kg_m2.has_value();
+  // A step measures Kt/J: with the inertia given, Kt itself.
+  const bool kt_from_step = !lr.measures_torque_constant && inertia_known && st.usable;
+  const bool kt_measured = lr.measures_torque_constant || kt_from_step;
   const std::string kt_name = kt_measured ? "torque_constant" : "back_emf_constant";
   const bool friction_from_no_load = nl.friction_identified;
-  const bool inertia_known = options.known_inertia_kg_m2.has_value();
-  const spin_down::Mechanics mechanics = (friction_from_no_load || inertia_known) ? spin_down::Mechanics::kAbsolute
-                                                                                  : spin_down::Mechanics::kRatios;
+  const spin_down::Mechanics mechanics = (friction_from_no_load || inertia_known || st.usable)
+                                             ? spin_down::Mechanics::kAbsolute
+                                             : spin_down::Mechanics::kRatios;
   double inertia_start = options.known_inertia_kg_m2.value_or(0.0);
   if (!inertia_known && sd.usable && friction_from_no_load) {
     inertia_start = (nl.coulomb_start > 0.0 && sd.coulomb_over_inertia_start > 0.0)
                         ? nl.coulomb_start / sd.coulomb_over_inertia_start
                         : nl.viscous_start / sd.viscous_over_inertia_start;
+  } else if (!inertia_known && st.usable) {
+    inertia_start = step::InertiaStart(st, lr.measures_torque_constant ? lr.torque_constant_start : st.back_emf_start);
   }
 
   // 3. One problem.
@@ -203,7 +225,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   no_load::AddNoLoad(&nl, kt_name, &parameters);
   if (sd.usable && mechanics == spin_down::Mechanics::kAbsolute && !(inertia_start > 0.0)) sd.usable = false;
   spin_down::AddSpinDown(&sd, mechanics, inertia_start, inertia_known, &parameters);
-  const bool anything = lr.resistance_identified || nl.back_emf_identified || sd.usable;
+  step::AddStep(&st, kt_name, inertia_start, inertia_known, &parameters);
+  const bool anything = lr.resistance_identified || nl.back_emf_identified || sd.usable || st.usable;
   if (!anything) {
     AddMissingReasons(&e);
     return e;
@@ -220,6 +243,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (lr.resistance_identified) locked_rotor::ReportLockedRotor(lr, fit, &e);
   no_load::ReportNoLoad(nl, fit, &e);
   spin_down::ReportSpinDown(sd, fit, &e);
+  step::ReportStep(st, fit, &e);
   if (!fit.usable) {
     std::string involved;
     for (const auto& direction : fit.not_identifiable)
@@ -259,11 +283,17 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     e.parameters.push_back(kt);
   }
   core::CopyCovariance(fit, covariance_names, &e);
-  AddInformationShares(lr, nl, sd, parameters, fit, &e);
+  if (kt_from_step)
+    for (auto& q : e.parameters)
+      if (q.key == "torque_constant") {
+        q.basis = "measured";
+        q.note = "from the step's Kt/J with the inertia given by --known-inertia";
+      }
+  AddInformationShares(lr, nl, sd, st, parameters, fit, &e);
   WarnStrongCorrelations(&e);
 
-  // 6. Ratios the coast determines on its own.
-  if (sd.usable) {
+  // 6. Ratios the coast (or a step) determines on its own.
+  if (sd.usable || st.usable) {
     if (mechanics == spin_down::Mechanics::kRatios) {
       e.ratios.push_back(core::ToQuantity(fit, "viscous_over_inertia", "B/J", "1/s", {"spin-down"}));
       e.ratios.push_back(core::ToQuantity(fit, "coulomb_over_inertia", "Tc/J", "rad/s^2", {"spin-down"}));
@@ -276,13 +306,18 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
           {"viscous_over_inertia", "B/J", "1/s", {"viscous_friction", "inertia"}, false,
            [](const model::ParameterValues& p) { return p.at("viscous_friction") / p.at("inertia"); }},
           {"coulomb_over_inertia", "Tc/J", "rad/s^2", {"coulomb_friction", "inertia"}, false,
-           [](const model::ParameterValues& p) { return p.at("coulomb_friction") / p.at("inertia"); }}};
-      for (const auto& f : ratios)
+           [](const model::ParameterValues& p) { return p.at("coulomb_friction") / p.at("inertia"); }},
+          {"torque_constant_over_inertia", "Kt/J", "rad/(s^2*A)", {"torque_constant", "inertia"}, false,
+           [](const model::ParameterValues& p) { return p.at("torque_constant") / p.at("inertia"); }}};
+      for (const auto& f : ratios) {
+        if (f.key == std::string("torque_constant_over_inertia") && !st.usable) continue;
         if (auto q = DeriveWithInterval(f, e, 0.0)) e.ratios.push_back(*q);
+      }
     }
   } else if (!coasts.empty()) {
     e.not_identified.push_back({"viscous_over_inertia", "no usable coast in the spin-down logs"});
   }
+  DropAnsweredReasons(&e);
   AddMissingReasons(&e);
 
   // 7. Derived quantities at the operating voltage, and the torque–speed line.

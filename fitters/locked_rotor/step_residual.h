@@ -48,14 +48,27 @@ struct RestBand {
 };
 
 template <typename T>
+bool AtRest(double voltage_V, const T& current_A, const RestBand& rest) {
+  using std::abs;
+  return std::fabs(voltage_V) <= rest.voltage_V && abs(current_A) <= T(rest.current_A);
+}
+
+// The drive u of the current while the rotor does not turn: v inside the rest
+// bands, else the brush rule.
+template <typename T>
+T HeldRotorDrive(double voltage_V, const T& current_A, const T& brush_drop_V, const RestBand& rest) {
+  return AtRest(voltage_V, current_A, rest) ? T(voltage_V) : FlowingDrive(voltage_V, current_A, brush_drop_V);
+}
+
+template <typename T>
 T Advance(double interval_s, double voltage_V, const T& current_A, const T& resistance_ohm, const T& inductance_H,
           const T& brush_drop_V, const RestBand& rest = {}) {
   using std::exp;
   using std::log;
   using std::abs;
   const T tau_s = inductance_H / resistance_ohm;
-  const bool at_rest = std::fabs(voltage_V) <= rest.voltage_V && abs(current_A) <= T(rest.current_A);
-  const T drive_V = at_rest ? T(voltage_V) : FlowingDrive(voltage_V, current_A, brush_drop_V);
+  const bool at_rest = AtRest(voltage_V, current_A, rest);
+  const T drive_V = HeldRotorDrive(voltage_V, current_A, brush_drop_V, rest);
   const T a = exp(-interval_s / tau_s);
   const T next_A = a * current_A + (1.0 - a) * drive_V / resistance_ohm;
   const bool crosses = (current_A > 0.0 && next_A < 0.0) || (current_A < 0.0 && next_A > 0.0);
