@@ -1,6 +1,6 @@
 #pragma once
 // Test helper: a simulated free-shaft bench (locked-rotor plateaus, no-load
-// plateaus, spin-down) for a motor with known parameters. The logs come from
+// plateaus, spin-down, free-shaft step) for a motor with known parameters. The logs come from
 // the forward model in src/model, itself checked against SciPy solve_ivp and
 // the closed-form coast in tests/model.
 
@@ -12,6 +12,7 @@
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_spin_down.h"
+#include "src/model/simulate_step.h"
 
 namespace coilspin::testing {
 
@@ -22,6 +23,7 @@ struct BenchOptions {
   bool encoder = false;              // position in counts instead of speed
   bool torque_column = false;        // load cell in the locked-rotor test
   bool coast_voltage = true;
+  bool step = false;                 // a free-shaft voltage step from rest to top_V
   std::uint64_t seed = 1;
 };
 
@@ -62,6 +64,16 @@ inline std::vector<joint::TestLog> SimulateBench(const model::MotorParameters& m
     p.log_voltage = o.coast_voltage;
     p.shaft = shaft;
     logs.push_back({TestKind::kSpinDown, ToBenchLog(model::SimulateSpinDown(m, p, Noise(o.seed + 2, o.encoder)), "coast.csv")});
+  }
+  if (o.step) {
+    // A fast logger: 20 samples per electrical time constant, five mechanical ones logged.
+    model::FreeShaftStepPlan p;
+    p.final_supply_V = top_V;
+    p.sample_period_s = m.inductance_H / m.resistance_ohm / 20.0;
+    p.pre_step_s = 20.0 * p.sample_period_s;
+    p.hold_s = 5.0 * m.inertia_kg_m2 * m.resistance_ohm / (m.back_emf_constant_V_s_per_rad * m.torque_constant_N_m_per_A);
+    p.shaft = shaft;
+    logs.push_back({TestKind::kStep, ToBenchLog(model::SimulateStep(m, p, Noise(o.seed + 3, o.encoder)), "step.csv")});
   }
   return logs;
 }
