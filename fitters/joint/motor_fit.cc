@@ -145,8 +145,6 @@ bool MotorFitOptions::IsValid(std::string* error) const {
   return locked_rotor.IsValid(error);
 }
 
-bool IsSupported(TestKind) { return true; }
-
 MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions& options) {
   MotorEstimate e;
   e.motor_label = options.motor_label;
@@ -290,6 +288,10 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
         q.note = "from the step's Kt/J with the inertia given by --known-inertia";
       }
   AddInformationShares(lr, nl, sd, st, parameters, fit, &e);
+  if (st.usable && fit.parameters[parameters.Index("brush_drop")].fixed)
+    e.warnings.push_back("the step fit held the brush drop Vb at 0 (no locked-rotor plateaus at 2 or more current "
+                         "levels): on a brushed motor R and Ke then absorb Vb, and their intervals do not include "
+                         "that bias");
   WarnStrongCorrelations(&e);
 
   // 6. Ratios the coast (or a step) determines on its own.

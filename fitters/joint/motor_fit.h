@@ -48,9 +48,6 @@ struct MotorFitOptions {
   bool IsValid(std::string* error) const;
 };
 
-// True for the kinds this build can fit.
-bool IsSupported(TestKind kind);
-
 MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions& options);
 
 }  // namespace coilspin::joint

@@ -43,7 +43,7 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--locked-rotor", a->locked_rotor_files, "Locked-rotor log (plateaus or a step capture); repeatable");
   c->add_option("--no-load", a->no_load_files, "No-load log (free shaft, settled supply levels); repeatable");
   c->add_option("--spin-down", a->spin_down_files, "Spin-down log (run up, then an open-circuit coast); repeatable");
-  c->add_option("--step", a->step_files, "Free-shaft voltage step log; repeatable (not yet supported)");
+  c->add_option("--step", a->step_files, "Free-shaft voltage step log; repeatable");
   c->add_option("--cpr", a->counts_per_rev, "Encoder counts per revolution, for position [counts]")
       ->check(CLI::PositiveNumber);
   c->add_option("--gear-ratio", a->gear_ratio, "Motor turns per output turn when speed is read at a gearbox output")
@@ -99,13 +99,6 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   if (planned.empty())
     throw InputError(InputErrorKind::kBadOption, "", 0, 0,
                      "no test logs given: name a session file or use --locked-rotor FILE");
-  for (const auto& p : planned)
-    if (!joint::IsSupported(p.kind))
-      throw InputError(InputErrorKind::kBadOption, p.path, 0, 0,
-                       std::string(TestKindToString(p.kind)) +
-                           " tests are not yet supported by this version of coilspin "
-                           "(locked-rotor, no-load and spin-down are)");
-
   joint::MotorFitOptions options;
   options.motor_label = session ? session->motor_label : "";
   options.confidence = FirstOf(a.confidence, session ? session->confidence : std::nullopt).value_or(0.95);

@@ -1,8 +1,11 @@
 #include "src/cli/simulate_command.h"
 
+#include <cmath>
 #include <limits>
 #include <sstream>
 #include <stdexcept>
+#include <tuple>
+#include <utility>
 
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
@@ -11,18 +14,25 @@
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_spin_down.h"
+#include "src/model/simulate_step.h"
+#include "src/model/step_plan_defaults.h"
 
 namespace coilspin::cli {
 namespace {
 
-// Defaults: a plateau logger at 1 kHz, a scope at 100 kHz, a free-shaft logger at 1 kHz.
+// Defaults: a plateau logger at 1 kHz, a scope at 100 kHz, a free-shaft logger at 1 kHz (the
+// free-shaft step's fast logger: src/model/step_plan_defaults.h).
 constexpr double kPlateauSamplePeriod_s = 1e-3;
 constexpr double kStepSamplePeriod_s = 10e-6;
 constexpr double kFreeShaftSamplePeriod_s = 1e-3;
 constexpr double kPlateauHold_s = 0.5;
+// Logged before a step (locked-rotor capture and free shaft) and, locked, after it: a scope's
+// pre-trigger span and about ten electrical time constants of a 1 mH, 1 ohm winding.
+constexpr double kStepBefore_s = 1e-3;
+constexpr double kLockedStepAfter_s = 10e-3;
 constexpr const char* kCountsUnit = "counts";
 
-enum class Kind { kLockedRotor, kNoLoad, kSpinDown };
+enum class Kind { kLockedRotor, kNoLoad, kSpinDown, kStep };
 
 [[noreturn]] void Bad(const std::string& message) {
   throw InputError(InputErrorKind::kBadOption, "", 0, 0, message);
@@ -39,7 +49,18 @@ Kind KindOf(const std::string& text) {
   if (text == "locked-rotor") return Kind::kLockedRotor;
   if (text == "no-load") return Kind::kNoLoad;
   if (text == "spin-down") return Kind::kSpinDown;
-  Bad("simulate writes locked-rotor, no-load or spin-down logs, not '" + text + "'");
+  if (text == "step") return Kind::kStep;
+  Bad("simulate writes locked-rotor, no-load, spin-down or step logs, not '" + text + "'");
+}
+
+std::string NameOf(Kind kind) {
+  switch (kind) {
+    case Kind::kLockedRotor: return "locked-rotor";
+    case Kind::kNoLoad: return "no-load";
+    case Kind::kSpinDown: return "spin-down";
+    case Kind::kStep: return "step";
+  }
+  return {};  // unreachable: every enumerator is named
 }
 
 bool LogsPosition(const SimulateArguments& a) { return a.counts_per_rev.has_value() || a.log_speed_and_position; }
@@ -48,8 +69,9 @@ bool LogsSpeed(const SimulateArguments& a) { return !a.counts_per_rev.has_value(
 // An option that was given where it has no meaning is an error, not silently ignored.
 void RejectInapplicable(const SimulateArguments& a, Kind kind) {
   const bool locked = kind == Kind::kLockedRotor, no_load = kind == Kind::kNoLoad;
-  const bool spin_down = kind == Kind::kSpinDown, free_shaft = no_load || spin_down;
-  const bool plateaus = locked && a.step_spec.empty();
+  const bool spin_down = kind == Kind::kSpinDown, step = kind == Kind::kStep;
+  const bool free_shaft = no_load || spin_down || step;
+  const bool plateaus = locked && a.step_spec.empty(), locked_step = locked && !a.step_spec.empty();
   struct Rule {
     const char* option;
     bool given;
@@ -57,11 +79,19 @@ void RejectInapplicable(const SimulateArguments& a, Kind kind) {
     const char* otherwise;  // the rest of the message
   };
   const Rule rules[] = {
-      {"--step", !a.step_spec.empty(), locked, "applies to locked-rotor only"},
+      {"--step", !a.step_spec.empty(), locked || step, "applies to locked-rotor and step only"},
+      {"--before", a.before_s.has_value(), locked_step || step,
+       "applies to step captures only (locked-rotor with --step, or step)"},
+      {"--after", a.after_s.has_value(), locked_step || step,
+       "applies to step captures only (locked-rotor with --step, or step)"},
+      {"--settle", a.settle_s.has_value(), step, "applies to step only"},
       {"--levels", !a.levels_V.empty(), plateaus || no_load, "applies to locked-rotor plateaus and no-load only"},
-      {"--hold", a.hold_s.has_value(), plateaus || no_load, "applies to locked-rotor plateaus and no-load only"},
-      {"--log-temperature", a.log_temperature, locked || no_load, "applies to locked-rotor and no-load only"},
-      {"--heating-per-plateau", a.bench.heating_per_plateau_K != 0.0, locked, "applies to locked-rotor only"},
+      {"--hold", a.hold_s.has_value(), plateaus || no_load,
+       "applies to locked-rotor plateaus and no-load only (a step's hold is --after)"},
+      {"--log-temperature", a.log_temperature, plateaus || no_load || step,
+       "applies to locked-rotor plateaus, no-load and step only"},
+      {"--heating-per-plateau", a.bench.heating_per_plateau_K != 0.0, plateaus,
+       "applies to locked-rotor plateaus only"},
       {"--log-torque", a.log_torque, plateaus, "applies to locked-rotor plateaus only"},
       {"--torque-noise", a.torque_noise_sigma_N_m.has_value(), a.log_torque, "needs a torque column (--log-torque)"},
       {"--supply", a.supply_V.has_value(), spin_down, "applies to spin-down only"},
@@ -70,13 +100,14 @@ void RejectInapplicable(const SimulateArguments& a, Kind kind) {
       {"--brake-resistance", a.brake_resistance_ohm.has_value(), spin_down, "applies to spin-down only"},
       {"--no-coast-voltage", a.no_coast_voltage, spin_down, "applies to spin-down only"},
       {"--no-coast-current", a.no_coast_current, spin_down, "applies to spin-down only"},
-      {"--cpr", a.counts_per_rev.has_value(), free_shaft, "applies to no-load and spin-down only"},
-      {"--log-speed-and-position", a.log_speed_and_position, free_shaft, "applies to no-load and spin-down only"},
-      {"--gear-ratio", a.gear_ratio.has_value(), free_shaft, "applies to no-load and spin-down only"},
+      {"--cpr", a.counts_per_rev.has_value(), free_shaft, "applies to no-load, spin-down and step only"},
+      {"--log-speed-and-position", a.log_speed_and_position, free_shaft,
+       "applies to no-load, spin-down and step only"},
+      {"--gear-ratio", a.gear_ratio.has_value(), free_shaft, "applies to no-load, spin-down and step only"},
       {"--speed-noise", a.speed_noise_sigma_rad_s.has_value(), free_shaft && LogsSpeed(a),
-       "needs a speed column (no-load or spin-down, without --cpr or with --log-speed-and-position)"},
+       "needs a speed column (no-load, spin-down or step, without --cpr or with --log-speed-and-position)"},
       {"--position-unit", a.position_unit.has_value(), free_shaft && LogsPosition(a),
-       "needs a position column (no-load or spin-down, with --cpr or --log-speed-and-position)"},
+       "needs a position column (no-load, spin-down or step, with --cpr or --log-speed-and-position)"},
   };
   for (const Rule& rule : rules) {
     if (rule.given && !rule.applies) Bad(std::string(rule.option) + " " + rule.otherwise);
@@ -87,7 +118,7 @@ void RejectInapplicable(const SimulateArguments& a, Kind kind) {
 model::MotorParameters MotorFor(const SimulateArguments& a, Kind kind) {
   model::MotorParameters motor = a.motor;
   motor.torque_constant_N_m_per_A = a.torque_constant.value_or(motor.back_emf_constant_V_s_per_rad);
-  const std::string name = kind == Kind::kNoLoad ? "no-load" : "spin-down";
+  const std::string name = NameOf(kind);
   if (kind != Kind::kLockedRotor) {
     if (!(motor.back_emf_constant_V_s_per_rad > 0.0)) Bad(name + " needs --back-emf-constant (Ke, V*s/rad)");
     if (!(motor.inertia_kg_m2 > 0.0)) Bad(name + " needs --inertia (J, kg*m^2)");
@@ -118,20 +149,32 @@ std::string Text(double value) {
   return text.str();
 }
 
+// --step FROM:TO, the supply [V] before and after the step.
+std::pair<double, double> StepLevels(const std::string& spec) {
+  const std::string usage = "--step expects FROM:TO volts, e.g. 0:12, got '" + spec + "'";
+  const auto colon = spec.find(':');
+  if (colon == std::string::npos) Bad(usage);
+  const auto volts = [&usage](const std::string& text) {
+    std::size_t used = 0;
+    double value = 0.0;
+    try {
+      value = std::stod(text, &used);
+    } catch (const std::logic_error&) {
+      Bad(usage);
+    }
+    if (used != text.size() || !std::isfinite(value)) Bad(usage);
+    return value;
+  };
+  return {volts(spec.substr(0, colon)), volts(spec.substr(colon + 1))};
+}
+
 model::SampledLog LockedRotorLog(const SimulateArguments& a, const model::MotorParameters& motor,
                                  const model::BenchConditions& bench, output::CsvStyle& style) {
   if (!a.step_spec.empty()) {
-    const auto colon = a.step_spec.find(':');
-    if (colon == std::string::npos) Bad("--step expects FROM:TO volts, e.g. 0:12, got '" + a.step_spec + "'");
     model::StepPlan plan;
-    try {
-      plan.supply_before_V = std::stod(a.step_spec.substr(0, colon));
-      plan.supply_after_V = std::stod(a.step_spec.substr(colon + 1));
-    } catch (const std::logic_error&) {
-      Bad("--step expects FROM:TO volts, e.g. 0:12, got '" + a.step_spec + "'");
-    }
-    plan.before_s = a.before_s;
-    plan.after_s = a.after_s;
+    std::tie(plan.supply_before_V, plan.supply_after_V) = StepLevels(a.step_spec);
+    plan.before_s = a.before_s.value_or(kStepBefore_s);
+    plan.after_s = a.after_s.value_or(kLockedStepAfter_s);
     plan.sample_period_s = a.sample_period_s.value_or(kStepSamplePeriod_s);
     style.comment_lines.push_back("simulated locked-rotor step capture (coilspin simulate)");
     return model::SimulateLockedRotorStep(motor, plan, bench);
@@ -185,6 +228,31 @@ model::SampledLog SpinDownLog(const SimulateArguments& a, const model::MotorPara
   return model::SimulateSpinDown(motor, plan, bench);
 }
 
+model::SampledLog StepLog(const SimulateArguments& a, const model::MotorParameters& motor,
+                          const model::BenchConditions& bench, output::CsvStyle& style) {
+  if (a.step_spec.empty()) Bad("step needs --step FROM:TO, the supply [V] before and after the step, e.g. 0:12");
+  model::FreeShaftStepPlan plan;
+  std::tie(plan.initial_supply_V, plan.final_supply_V) = StepLevels(a.step_spec);
+  if (a.settle_s && plan.initial_supply_V == 0.0) {
+    Bad("--settle applies to a step from a non-zero level (FROM != 0); a step from 0 V starts at rest");
+  }
+  const double settling_s = model::SettlingTime_s(motor, bench);
+  if (plan.initial_supply_V != 0.0) plan.settle_s = a.settle_s.value_or(settling_s);
+  plan.pre_step_s = a.before_s.value_or(kStepBefore_s);
+  plan.hold_s = a.after_s.value_or(settling_s);
+  plan.sample_period_s = a.sample_period_s ? *a.sample_period_s : model::StepSamplePeriod_s(motor, bench);
+  plan.shaft = ShaftFor(a);
+  plan.log_temperature = a.log_temperature;
+  const std::string start =
+      plan.initial_supply_V == 0.0
+          ? "from rest"
+          : "after " + Text(plan.settle_s) + " s unlogged at " + Text(plan.initial_supply_V) + " V";
+  style.comment_lines.push_back("simulated free-shaft voltage step " + Text(plan.initial_supply_V) + " V -> " +
+                                Text(plan.final_supply_V) + " V at t = " + Text(model::StepTime_s(plan)) + " s, " +
+                                start + " (coilspin simulate)");
+  return model::SimulateStep(motor, plan, bench);
+}
+
 output::CsvStyle StyleFor(const SimulateArguments& a, const model::BenchConditions& bench) {
   output::CsvStyle style = a.style;
   style.delimiter = Delimiter(a.delimiter);
@@ -217,18 +285,21 @@ void AddShaftNotes(const model::BenchConditions& bench, output::CsvStyle& style)
 }  // namespace
 
 void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
-  c->add_option("kind", a->kind, "Test to simulate: locked-rotor, no-load or spin-down")->required();
+  c->add_option("kind", a->kind, "Test to simulate: locked-rotor, no-load, spin-down or step (free-shaft voltage step)")
+      ->required();
   c->add_option("--out", a->out_path, "CSV file to write (atomically)")->required();
-  // The motor (SI). Every kind needs R and L; no-load and spin-down also Ke and J.
+  // The motor (SI). Every kind needs R and L; no-load, spin-down and step also Ke and J.
   c->add_option("--resistance", a->motor.resistance_ohm, "R [ohm] at the winding's starting temperature")
       ->required()->check(CLI::PositiveNumber);
   c->add_option("--inductance", a->motor.inductance_H, "L [H]")->required()->check(CLI::PositiveNumber);
   c->add_option("--brush-drop", a->motor.brush_drop_V, "Vb [V]")->check(CLI::NonNegativeNumber);
-  c->add_option("--back-emf-constant", a->motor.back_emf_constant_V_s_per_rad, "Ke [V*s/rad] (no-load, spin-down)")
+  c->add_option("--back-emf-constant", a->motor.back_emf_constant_V_s_per_rad,
+                "Ke [V*s/rad] (no-load, spin-down, step)")
       ->check(CLI::PositiveNumber);
   c->add_option("--torque-constant", a->torque_constant, "Kt [N*m/A]; default Ke (ideal machine, SI)")
       ->check(CLI::PositiveNumber);
-  c->add_option("--inertia", a->motor.inertia_kg_m2, "J [kg*m^2] (no-load, spin-down)")->check(CLI::PositiveNumber);
+  c->add_option("--inertia", a->motor.inertia_kg_m2, "J [kg*m^2] (no-load, spin-down, step)")
+      ->check(CLI::PositiveNumber);
   c->add_option("--viscous-friction", a->motor.viscous_friction_N_m_s_per_rad, "B [N*m*s/rad]")
       ->check(CLI::NonNegativeNumber);
   c->add_option("--coulomb-friction", a->motor.coulomb_friction_N_m, "Tc [N*m]")->check(CLI::NonNegativeNumber);
@@ -238,9 +309,14 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
       ->delimiter(',');
   c->add_option("--hold", a->hold_s, "Time at each level [s] (0.5 locked-rotor; no-load: until settled)")
       ->check(CLI::PositiveNumber);
-  c->add_option("--step", a->step_spec, "A step capture instead of plateaus: FROM:TO supply volts, e.g. 0:12");
-  c->add_option("--before", a->before_s, "Time logged before the step [s]")->check(CLI::PositiveNumber);
-  c->add_option("--after", a->after_s, "Time logged after the step [s]")->check(CLI::PositiveNumber);
+  c->add_option("--step", a->step_spec,
+                "FROM:TO supply volts, e.g. 0:12: locked-rotor, a step capture instead of plateaus; step, its levels");
+  c->add_option("--before", a->before_s, "Time logged before the step [s] (default 1e-3)")->check(CLI::PositiveNumber);
+  c->add_option("--after", a->after_s, "Time logged after the step [s] (1e-2 locked-rotor; step: until settled)")
+      ->check(CLI::PositiveNumber);
+  c->add_option("--settle", a->settle_s,
+                "Step from FROM != 0: unlogged run at FROM before the log starts [s] (default: until settled)")
+      ->check(CLI::PositiveNumber);
   c->add_option("--supply", a->supply_V, "Spin-down: supply voltage [V] of the run");
   c->add_option("--run", a->run_s,
                 "Spin-down: time at the supply before it is disconnected [s] (default: until settled)")
@@ -253,7 +329,9 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_flag("--no-coast-voltage", a->no_coast_voltage, "Spin-down: no voltage column");
   c->add_flag("--no-coast-current", a->no_coast_current, "Spin-down: no current column");
   c->add_option("--sample-period", a->sample_period_s,
-                "Logger sample period [s] (1e-3 plateaus and free shaft, 1e-5 step)")->check(CLI::PositiveNumber);
+                "Logger sample period [s] (1e-3 plateaus, no-load, spin-down; 1e-5 locked-rotor step; "
+                "step: 2e-5, or L/(R+R_s)/10 if shorter)")
+      ->check(CLI::PositiveNumber);
   // The bench.
   c->add_option("--supply-resistance", a->bench.supply_resistance_ohm, "Supply internal resistance [ohm]")
       ->check(CLI::NonNegativeNumber);
@@ -303,6 +381,7 @@ int RunSimulate(const SimulateArguments& a) {
     if (kind == Kind::kLockedRotor) log = LockedRotorLog(a, motor, bench, style);
     if (kind == Kind::kNoLoad) log = NoLoadLog(a, motor, bench, style);
     if (kind == Kind::kSpinDown) log = SpinDownLog(a, motor, bench, style);
+    if (kind == Kind::kStep) log = StepLog(a, motor, bench, style);
   } catch (const std::invalid_argument& e) {
     Bad(e.what());
   }

@@ -1,11 +1,12 @@
 #pragma once
-// `coilspin simulate locked-rotor|no-load|spin-down ...`: writes a synthetic
-// bench log from a parameter set, for demos, tests and for trying the tool
-// without a bench.
+// `coilspin simulate locked-rotor|no-load|spin-down|step ...`: writes a
+// synthetic bench log from a parameter set, for demos, tests and for trying
+// the tool without a bench. `step` is the free-shaft voltage step
+// (src/model/simulate_step.h).
 //
 // Motor parameters may be given for any kind (one parameter set serves every
 // test); each kind requires those its bench needs (locked-rotor: R, L;
-// no-load and spin-down also Ke and J; a torque column Kt or Ke) and Kt
+// no-load, spin-down and step also Ke and J; a torque column Kt or Ke) and Kt
 // defaults to Ke. Test-plan and readout options that do not apply to the kind
 // are rejected rather than ignored.
 
@@ -28,9 +29,10 @@ struct SimulateArguments {
   model::BenchConditions bench;
   std::vector<double> levels_V;              // locked-rotor plateaus, no-load levels
   std::optional<double> hold_s;              // 0.5 s locked-rotor; no-load: the settling time
-  std::string step_spec;                     // "FROM:TO" volts: a step capture instead of plateaus
-  double before_s = 1e-3;
-  double after_s = 10e-3;
+  std::string step_spec;                     // "FROM:TO" volts: locked-rotor step capture; step: V_0:V_1
+  std::optional<double> before_s;            // logged before the step: 1 ms
+  std::optional<double> after_s;             // logged after it: 10 ms locked-rotor; step: the settling time
+  std::optional<double> settle_s;            // step from V_0 != 0: unlogged run at V_0, default the settling time
   std::optional<double> sample_period_s;
   bool log_temperature = false;
   bool log_torque = false;                   // locked-rotor plateaus: a load-cell torque column

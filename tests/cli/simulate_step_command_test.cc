@@ -1,0 +1,177 @@
+// End-to-end: `coilspin simulate step` as a user runs it. The log's columns,
+// its step instant and its sample period are read back from the CSV; options
+// that do not apply to a kind exit 2 and write nothing (src/cli/simulate_command.h).
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <cstddef>
+#include <sstream>
+#include <string>
+#include <vector>
+
+#include "cli/run_coilspin.h"
+
+namespace coilspin::testing {
+namespace {
+
+// The demo motor (datasets-demo/README.md), invented: τe = L/R = 0.82 mH/1.35 ohm ≈ 0.6 ms.
+const std::string kMotor =
+    "--resistance 1.35 --inductance 0.82e-3 --brush-drop 0.9 --back-emf-constant 0.021 --inertia 3.2e-5 "
+    "--viscous-friction 1.1e-5 --coulomb-friction 4.5e-3";
+// The CSV writer keeps 10 significant digits (src/output/bench_log_csv.h): times below 1 s to 1e-12 s.
+constexpr double kTimeTolerance_s = 1e-12;
+
+struct Csv {
+  std::vector<std::string> comments;  // without the leading "# "
+  std::vector<std::string> header;
+  std::vector<std::vector<double>> rows;
+};
+
+std::vector<std::string> Cells(const std::string& line) {
+  std::vector<std::string> cells;
+  std::istringstream in(line);
+  for (std::string cell; std::getline(in, cell, ',');) cells.push_back(cell);
+  return cells;
+}
+
+Csv ReadCsv(const std::filesystem::path& path) {
+  Csv csv;
+  std::istringstream in(Slurp(path));
+  for (std::string line; std::getline(in, line);) {
+    if (line.rfind("# ", 0) == 0) {
+      csv.comments.push_back(line.substr(2));
+    } else if (csv.header.empty()) {
+      csv.header = Cells(line);
+    } else {
+      std::vector<double> row;
+      for (const std::string& cell : Cells(line)) row.push_back(std::stod(cell));
+      csv.rows.push_back(row);
+    }
+  }
+  return csv;
+}
+
+class SimulateStepCommand : public ::testing::Test {
+ protected:
+  SimulateStepCommand() : folder_("simulate_step") {}
+  const std::filesystem::path& dir() const { return folder_.path(); }
+  ScratchFolder folder_;
+};
+
+TEST_F(SimulateStepCommand, FromRestWritesTheColumnsAndStepsAtTheGivenInstant) {
+  // src/model/simulate_step.h: samples at t_k = k·Δ, the step at round(before/Δ)·Δ = 2 ms (sample 100)
+  const RunResult r = RunCoilspin(
+      "simulate step --out step.csv --step 0:6 --before 2e-3 --after 0.05 --sample-period 2e-5 " + kMotor, dir());
+  ASSERT_EQ(r.status, 0) << r.err;
+  const Csv csv = ReadCsv(dir() / "step.csv");
+  EXPECT_EQ(csv.header, (std::vector<std::string>{"time [s]", "voltage [V]", "current [A]", "speed [rad/s]"}));
+  ASSERT_EQ(csv.rows.size(), 100u + 2500u);
+  ASSERT_FALSE(csv.comments.empty());
+  EXPECT_NE(csv.comments.front().find("step 0 V -> 6 V at t = 0.002 s"), std::string::npos) << csv.comments.front();
+  for (std::size_t k = 0; k < 100; ++k) {
+    // physics: at rest with the supply at 0 V, without noise, everything is exactly 0
+    EXPECT_EQ(csv.rows[k][1], 0.0) << "row " << k;
+    EXPECT_EQ(csv.rows[k][2], 0.0) << "row " << k;
+    EXPECT_EQ(csv.rows[k][3], 0.0) << "row " << k;
+  }
+  EXPECT_NEAR(csv.rows[100][0], 2e-3, kTimeTolerance_s);
+  EXPECT_EQ(csv.rows[100][1], 6.0);  // physics: v = V_s − R_s·i with i = 0 at the step instant
+  EXPECT_NEAR(csv.rows.back()[0], 2599 * 2e-5, kTimeTolerance_s);
+  // handbook: di/dt = (V_1 − Vb)/L at i = ω = 0, so one sample later i ≈ (6 − 0.9)/0.82e-3·Δ, low by
+  // about Δ/(2τe) ≈ 1.6 % (τe = L/R): within 3 %
+  const double first_A = (6.0 - 0.9) / 0.82e-3 * 2e-5;
+  EXPECT_NEAR(csv.rows[101][2], first_A, 0.03 * first_A);
+}
+
+TEST_F(SimulateStepCommand, EncoderLogsCountsInsteadOfSpeed) {
+  const RunResult r = RunCoilspin(
+      "simulate step --out enc.csv --step 0:6 --after 0.05 --cpr 500 --log-temperature " + kMotor, dir());
+  ASSERT_EQ(r.status, 0) << r.err;
+  const Csv csv = ReadCsv(dir() / "enc.csv");
+  EXPECT_EQ(csv.header, (std::vector<std::string>{"time [s]", "voltage [V]", "current [A]", "position [counts]",
+                                                  "temperature [degC]"}));
+  bool noted = false;
+  for (const std::string& comment : csv.comments) noted = noted || comment == "encoder_cpr: 500";
+  EXPECT_TRUE(noted);
+  ASSERT_FALSE(csv.rows.empty());
+  EXPECT_EQ(csv.rows.front()[3], 0.0);  // src/model/shaft_channels.h: zeroed at the start
+  EXPECT_GT(csv.rows.back()[3], 0.0);
+  EXPECT_EQ(csv.rows.back()[3], std::floor(csv.rows.back()[3]));  // whole counts
+}
+
+TEST_F(SimulateStepCommand, BetweenTwoLevelsStartsAfterTheUnloggedSettle) {
+  // src/model/simulate_step.h: t counts from the unlogged start; the step comes `before` later
+  const RunResult r = RunCoilspin(
+      "simulate step --out levels.csv --step 3:6 --settle 0.5 --before 1e-3 --after 0.02 --sample-period 2e-5 " +
+          kMotor,
+      dir());
+  ASSERT_EQ(r.status, 0) << r.err;
+  const Csv csv = ReadCsv(dir() / "levels.csv");
+  ASSERT_EQ(csv.rows.size(), 50u + 1000u);
+  EXPECT_NEAR(csv.rows.front()[0], 0.5, kTimeTolerance_s);
+  EXPECT_EQ(csv.rows[49][1], 3.0);   // no supply resistance: v = V_s
+  EXPECT_EQ(csv.rows[50][1], 6.0);
+  EXPECT_NEAR(csv.rows[50][0], 0.501, kTimeTolerance_s);
+  EXPECT_GT(csv.rows.front()[3], 0.0) << "already turning at 3 V";
+}
+
+TEST_F(SimulateStepCommand, DefaultSamplePeriodResolvesTheElectricalTimeConstant) {
+  // src/model/step_plan_defaults.h: Δ = min(20 µs, τe/10). The demo motor's τe ≈ 0.6 ms gives 20 µs;
+  // a 0.1 mH, 1 ohm winding (τe = 0.1 ms) gives 10 µs
+  ASSERT_EQ(RunCoilspin("simulate step --out slow.csv --step 0:6 --after 0.01 " + kMotor, dir()).status, 0);
+  const Csv slow = ReadCsv(dir() / "slow.csv");
+  ASSERT_GT(slow.rows.size(), 2u);
+  EXPECT_NEAR(slow.rows[1][0] - slow.rows[0][0], 20e-6, kTimeTolerance_s);
+  ASSERT_EQ(RunCoilspin("simulate step --out fast.csv --step 0:6 --after 0.01 --resistance 1 --inductance 1e-4 "
+                        "--back-emf-constant 0.02 --inertia 1e-5",
+                        dir())
+                .status,
+            0);
+  const Csv fast = ReadCsv(dir() / "fast.csv");
+  ASSERT_GT(fast.rows.size(), 2u);
+  EXPECT_NEAR(fast.rows[1][0] - fast.rows[0][0], 10e-6, kTimeTolerance_s);
+}
+
+struct Inapplicable {
+  std::string name;
+  std::string arguments;  // after "simulate"
+  std::string expected;   // a fragment of the message
+};
+
+void PrintTo(const Inapplicable& c, std::ostream* os) { *os << c.name; }
+
+class InapplicableOptions : public SimulateStepCommand, public ::testing::WithParamInterface<Inapplicable> {};
+
+TEST_P(InapplicableOptions, ExitTwoAndWriteNothing) {
+  // common practice: an option that would be ignored is an error, so a typo cannot pass silently
+  const Inapplicable& c = GetParam();
+  const RunResult r = RunCoilspin("simulate " + c.arguments + " --out never.csv " + kMotor, dir());
+  EXPECT_EQ(r.status, 2) << r.err;
+  EXPECT_NE(r.err.find(c.expected), std::string::npos) << r.err;
+  EXPECT_FALSE(std::filesystem::exists(dir() / "never.csv"));
+}
+
+INSTANTIATE_TEST_SUITE_P(
+    Step, InapplicableOptions,
+    ::testing::Values(
+        Inapplicable{"levels", "step --step 0:6 --levels 2,4", "--levels applies to locked-rotor plateaus"},
+        Inapplicable{"hold", "step --step 0:6 --hold 1", "a step's hold is --after"},
+        Inapplicable{"supply", "step --step 0:6 --supply 6", "--supply applies to spin-down only"},
+        Inapplicable{"brake", "step --step 0:6 --brake-resistance 1", "--brake-resistance applies to spin-down"},
+        Inapplicable{"torque", "step --step 0:6 --log-torque", "--log-torque applies to locked-rotor plateaus"},
+        Inapplicable{"heating", "step --step 0:6 --heating-per-plateau 0.3", "--heating-per-plateau applies"},
+        Inapplicable{"settle_from_rest", "step --step 0:6 --settle 1", "--settle applies to a step from a non-zero"},
+        Inapplicable{"settle_no_load", "no-load --levels 2,4 --settle 1", "--settle applies to step only"},
+        Inapplicable{"before_no_load", "no-load --levels 2,4 --before 1e-3", "--before applies to step captures"},
+        Inapplicable{"after_plateaus", "locked-rotor --levels 2,4 --after 1e-2", "--after applies to step captures"},
+        Inapplicable{"temperature_capture", "locked-rotor --step 0:4 --log-temperature",
+                     "--log-temperature applies to locked-rotor plateaus, no-load and step"},
+        Inapplicable{"cpr_locked", "locked-rotor --levels 2,4 --cpr 500", "applies to no-load, spin-down and step"},
+        Inapplicable{"no_levels", "step --after 0.01", "step needs --step FROM:TO"},
+        Inapplicable{"bad_levels", "step --step 0:6V", "--step expects FROM:TO volts"},
+        Inapplicable{"unknown_kind", "steps --step 0:6", "locked-rotor, no-load, spin-down or step"}),
+    [](const ::testing::TestParamInfo<Inapplicable>& info) { return info.param.name; });
+
+}  // namespace
+}  // namespace coilspin::testing
