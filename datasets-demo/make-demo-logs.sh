@@ -24,8 +24,8 @@ mechanics="--back-emf-constant 0.021 --inertia 3.2e-5 --viscous-friction 1.1e-5 
 "$coilspin" simulate spin-down --out "$here/spin-down.csv" $motor $mechanics \
   --supply 6 --cpr 500 --no-coast-current --voltage-noise 0.003 --seed 10
 # Free-shaft voltage step, 0 -> 6 V from rest through the bench supply and leads (0.1 ohm), clamped
-# body, free shaft; a fast logger at 20 kS/s (about 11 samples per electrical time constant) and
-# the 500-count encoder; 5 ms before the step, 0.6 s (about 6 mechanical time constants) after.
+# body, free shaft; a fast logger at 40 kS/s (about 22 samples per electrical time constant) and
+# the 500-count encoder; 5 ms before the step, 0.4 s (about 4 mechanical time constants) after.
 "$coilspin" simulate step --out "$here/step.csv" $motor $mechanics \
-  --step 0:6 --before 5e-3 --after 0.6 --sample-period 50e-6 --supply-resistance 0.1 --cpr 500 \
+  --step 0:6 --before 5e-3 --after 0.4 --sample-period 25e-6 --supply-resistance 0.1 --cpr 500 \
   --voltage-noise 0.003 --current-noise 0.004 --voltage-lsb 0.005 --current-lsb 0.0025 --seed 11

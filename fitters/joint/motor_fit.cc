@@ -12,6 +12,7 @@
 #include "fitters/locked_rotor/input_noise.h"
 #include "fitters/no_load/no_load_fit.h"
 #include "fitters/spin_down/spin_down_fit.h"
+#include "fitters/step/input_noise.h"
 #include "fitters/step/step_fit.h"
 #include "src/ingest/encoder_speed.h"
 #include "src/units/constants.h"
@@ -235,6 +236,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   solve.group_sigma_rounds = kGroupSigmaRounds;
   core::FitResult fit = problem.Solve(solve);
   locked_rotor::AddVoltageNoiseCovariance(lr, parameters, &fit);
+  step::AddStepVoltageNoiseCovariance(st, kt_name, parameters, &fit);
   e.solver.push_back(core::ToSolverSummary(fit));
 
   // 4. Each test reports its residuals (and the locked-rotor test its own notes).

@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "fitters/core/added_covariance.h"
 #include "fitters/locked_rotor/step_residual.h"
 
 namespace coilspin::locked_rotor {
@@ -70,20 +71,7 @@ void AddVoltageNoiseCovariance(const LockedRotorPlan& plan, const core::SharedPa
     const Eigen::MatrixXd g = cov_columns * u;  // Cov·U
     extra += sigma_v * sigma_v * g * g.transpose();
   }
-  fit->covariance += extra;
-  for (Eigen::Index j = 0; j < p; ++j) {
-    core::ParameterEstimate& e = fit->parameters[j];
-    if (e.fixed || !(e.std_error > 0.0)) continue;
-    const double quantile = (e.ci_high - e.value) / e.std_error;  // t at the same degrees of freedom
-    e.std_error = std::sqrt(fit->covariance(j, j));
-    e.ci_low = e.value - quantile * e.std_error;
-    e.ci_high = e.value + quantile * e.std_error;
-  }
-  for (Eigen::Index a = 0; a < p; ++a)
-    for (Eigen::Index b = 0; b < p; ++b) {
-      const double scale = std::sqrt(fit->covariance(a, a) * fit->covariance(b, b));
-      fit->correlation(a, b) = scale > 0.0 ? fit->covariance(a, b) / scale : 0.0;
-    }
+  core::AddCovariance(extra, fit);
 }
 
 }  // namespace coilspin::locked_rotor

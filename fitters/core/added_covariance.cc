@@ -1,0 +1,25 @@
+#include "fitters/core/added_covariance.h"
+
+#include <cmath>
+
+namespace coilspin::core {
+
+void AddCovariance(const Eigen::MatrixXd& extra, FitResult* fit) {
+  fit->covariance += extra;
+  const Eigen::Index p = fit->covariance.rows();
+  for (Eigen::Index j = 0; j < p; ++j) {
+    ParameterEstimate& e = fit->parameters[static_cast<std::size_t>(j)];
+    if (e.fixed || !(e.std_error > 0.0)) continue;
+    const double quantile = (e.ci_high - e.value) / e.std_error;  // t at the same degrees of freedom
+    e.std_error = std::sqrt(fit->covariance(j, j));
+    e.ci_low = e.value - quantile * e.std_error;
+    e.ci_high = e.value + quantile * e.std_error;
+  }
+  for (Eigen::Index a = 0; a < p; ++a)
+    for (Eigen::Index b = 0; b < p; ++b) {
+      const double scale = std::sqrt(fit->covariance(a, a) * fit->covariance(b, b));
+      fit->correlation(a, b) = scale > 0.0 ? fit->covariance(a, b) / scale : 0.0;
+    }
+}
+
+}  // namespace coilspin::core

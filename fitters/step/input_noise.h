@@ -1,0 +1,35 @@
+#pragma once
+// Noise on the logged voltage that drives a step fit (docs/methods.md §3.3).
+//
+// The step model takes the logged terminal voltage as its input, so the
+// voltage channel's noise (σ_v, from first differences) passes through the
+// motor's dynamics into the modelled current and speed as a slowly varying
+// error the white output-noise model does not count; left out, the intervals
+// of L, J and Ke are too narrow (measured: 8 and 9 of 20 covered for L and J,
+// tests/step/step_coverage_test.cc). To first order (a sandwich term, as for
+// the locked-rotor capture, fitters/locked_rotor/input_noise.h),
+//     δθ = Cov·g,   g = Σ_c J_cᵀ·δŷ_c/σ_c²,   Cov_v = Cov·E[g·gᵀ]·Cov
+// over the channels c of the log, with δŷ_c the change of the modelled output
+// when the input moves by δv. Here E[g·gᵀ] is estimated by random probes:
+// δv = σ_v·z with z standard normal and independent per sample, δŷ from one
+// forward simulation per probe (so the cost is kInputNoiseProbes simulations,
+// not one per sample), averaged over a fixed-seed set of probes. Its Monte
+// Carlo error, about √(2/K) relative, is small beside the term's own effect.
+// Treating the voltage noise as measurement noise is conservative when part
+// of it is real supply ripple that the winding sees.
+
+#include "fitters/core/least_squares.h"
+#include "fitters/core/shared_parameters.h"
+#include "fitters/step/step_fit.h"
+
+namespace coilspin::step {
+
+// Random probes per step log (K).
+inline constexpr int kInputNoiseProbes = 128;
+
+// Adds Cov_v of every step log to fit->covariance and updates the standard
+// errors, intervals and correlation. torque_constant_name as for AddStep.
+void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, const std::string& torque_constant_name,
+                                   const core::SharedParameters& parameters, core::FitResult* fit);
+
+}  // namespace coilspin::step
