@@ -7,6 +7,7 @@
 #include "fitters/core/least_squares.h"
 #include "fitters/core/null_space.h"
 #include "fitters/core/problem_internals.h"
+#include "fitters/core/residual_statistics.h"
 
 namespace coilspin::core {
 namespace {
@@ -116,6 +117,13 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     term.num_residuals = groups_[g]->num_residuals;
     term.weighted_rss = analysis.groups[g].weighted_residuals.squaredNorm();
     term.jacobian = analysis.groups[g].jacobian;
+    if (options.widen_for_autocorrelation) {
+      // ρ̂₁ does not depend on the weight 1/σ_g, so the weighted residuals serve.
+      const AutocorrelationWidening widening =
+          DecideWidening(term.num_residuals, Lag1Autocorrelation(analysis.groups[g].weighted_residuals));
+      term.variance_inflation = widening.inflation;
+      analysis.widening.push_back(widening);
+    }
     terms.push_back(std::move(term));
   }
   analysis.breakdown = CombineGroups(inverse_information, terms, options.residual_variance_from_data);
@@ -137,6 +145,18 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
 
 bool LeastSquaresProblem::RescaleGroupSigmas(const FitAnalysis& analysis) {
   if (!analysis.has_covariance || !analysis.failure.empty()) return false;
+  if (loss_ != RobustLoss::kSquared) {
+    // A spike inflates RSS_g but not the median absolute deviation (robust_loss.h, "The scale").
+    bool evaluated = false;
+    const std::vector<Eigen::VectorXd> residuals = RawResiduals(true, &evaluated);
+    if (!evaluated) return false;
+    for (std::size_t g = 0; g < groups_.size(); ++g) {
+      if (groups_[g]->num_residuals == 0) continue;
+      const double scale = MedianAbsoluteDeviationScale(residuals[g]);
+      if (std::isfinite(scale) && scale > 0.0) groups_[g]->sigma = scale;
+    }
+    return true;
+  }
   for (std::size_t g = 0; g < groups_.size(); ++g) {
     if (groups_[g]->num_residuals == 0) continue;
     const double variance = analysis.breakdown.measured_residual_variance[g];

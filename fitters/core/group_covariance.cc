@@ -1,5 +1,6 @@
 #include "fitters/core/group_covariance.h"
 
+#include <algorithm>
 #include <limits>
 
 namespace coilspin::core {
@@ -22,6 +23,7 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     if (group.num_residuals == 0) {
       out.fitted_degrees_of_freedom.push_back(0.0);
       out.residual_degrees_of_freedom.push_back(0.0);
+      out.effective_degrees_of_freedom.push_back(0.0);
       out.residual_variance.push_back(0.0);
       out.measured_residual_variance.push_back(0.0);
       continue;
@@ -34,12 +36,16 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     const double used = variance_from_data ? measured : 1.0;
     out.fitted_degrees_of_freedom.push_back(fitted);
     out.residual_degrees_of_freedom.push_back(residual_dof);
+    const double inflation = group.variance_inflation;
+    out.effective_degrees_of_freedom.push_back(
+        inflation > 1.0 ? std::max(group.num_residuals / inflation - fitted, kMinimumEffectiveDegreesOfFreedom)
+                        : residual_dof);
     out.residual_variance.push_back(used);
     out.measured_residual_variance.push_back(measured);
 
     const Eigen::MatrixXd sandwich = projected.transpose() * projected;  // M_g = C·J_gᵀJ_g·C
-    out.covariance += used * sandwich;
-    out.variance_parts.row(g) = used * sandwich.diagonal().transpose();
+    out.covariance += inflation * used * sandwich;
+    out.variance_parts.row(g) = inflation * used * sandwich.diagonal().transpose();
   }
 
   if (!variance_from_data) return out;
@@ -50,7 +56,7 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
       const double part = out.variance_parts(g, j);
       if (part == 0.0) continue;
       total += part;
-      spread += part * part / out.residual_degrees_of_freedom[static_cast<std::size_t>(g)];
+      spread += part * part / out.effective_degrees_of_freedom[static_cast<std::size_t>(g)];
     }
     out.degrees_of_freedom(j) = spread > 0.0 ? total * total / spread : infinity;
   }

@@ -20,6 +20,10 @@
 // Nonlinear Regression Analysis and Its Applications, 1988, ch. 2).
 // The ratios v_gj / Σ_g v_gj are invariant to the scaling of x.
 //
+// Autocorrelated groups (autocorrelation_widening.h). A group given a variance
+// inflation f_g > 1 contributes f_g·s_g²·M_g instead of s_g²·M_g, and enters
+// ν_j with d_g replaced by max(n_g/f_g − h_g, kMinimumEffectiveDegreesOfFreedom).
+//
 // How it is computed. J_gᵀJ_g is never formed: with B_g = J_g·C,
 //     M_g = B_gᵀ·B_g        and      h_g = Σ_{k,j} (B_g)_kj·(J_g)_kj.
 // Forming J_gᵀJ_g first squares the condition number κ of J: the sandwich
@@ -30,6 +34,8 @@
 
 #include <Eigen/Dense>
 #include <vector>
+
+#include "fitters/core/autocorrelation_widening.h"
 
 namespace coilspin::core {
 
@@ -43,17 +49,20 @@ struct GroupTerms {
   int num_residuals = 0;
   double weighted_rss = 0.0;  // Σ (r/σ_g)² at the solution
   Eigen::MatrixXd jacobian;   // J_g = ∂(r/σ_g)/∂x, n_g × p
+  double variance_inflation = 1.0;  // f_g ≥ 1 for autocorrelated residuals; 1 when independent
 };
 
 struct CovarianceBreakdown {
   std::vector<double> fitted_degrees_of_freedom;    // h_g
   std::vector<double> residual_degrees_of_freedom;  // d_g = n_g − h_g
+  // d_g as used in ν_j: d_g, or max(n_g/f_g − h_g, floor) for an inflated group.
+  std::vector<double> effective_degrees_of_freedom;
   // s_g² actually used: RSS_g/d_g from the data, or 1 when σ_g is known. NaN when
   // estimated from the data but d_g is not positive; 0 for a group without residuals.
   std::vector<double> residual_variance;
   // RSS_g/d_g, whether or not it was used (NaN when d_g is not positive).
   std::vector<double> measured_residual_variance;
-  Eigen::MatrixXd variance_parts;        // v_gj, groups × p
+  Eigen::MatrixXd variance_parts;        // v_gj (times f_g), groups × p
   Eigen::MatrixXd covariance;            // Cov x, p × p
   Eigen::VectorXd degrees_of_freedom;    // ν_j, +infinity when σ_g are known
 };

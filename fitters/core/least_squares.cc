@@ -95,25 +95,150 @@ double LeastSquaresProblem::ScaleOf(int parameter) const {
   return parameters_[static_cast<std::size_t>(parameter)]->scale;
 }
 
-const double* LeastSquaresProblem::SigmaOf(int group) const {
-  Require(group >= 0 && group < static_cast<int>(groups_.size()), "unknown group index");
-  return &groups_[static_cast<std::size_t>(group)]->sigma;
-}
-
-void LeastSquaresProblem::RegisterBlock(int group, ceres::CostFunction* cost, const std::vector<int>& parameters,
-                                        int num_residuals) {
+const LeastSquaresProblem::Weighting* LeastSquaresProblem::NewBlock(int group, const std::vector<int>& parameters,
+                                                                    int num_residuals, RawEvaluation evaluate,
+                                                                    BlockCopier copier) {
   Require(group >= 0 && group < static_cast<int>(groups_.size()), "AddResiduals: unknown group index");
   Require(num_residuals > 0, "AddResiduals: a residual block needs at least one residual");
   Require(!parameters.empty(), "AddResiduals: a residual block needs at least one parameter");
   Require(parameters.size() <= static_cast<std::size_t>(kMaxParametersPerBlock),
           "AddResiduals: too many parameters for one residual block (kMaxParametersPerBlock)");
+  for (int index : parameters) {
+    Require(index >= 0 && index < static_cast<int>(parameters_.size()), "AddResiduals: unknown parameter index");
+  }
   const std::set<int> distinct(parameters.begin(), parameters.end());
   Require(distinct.size() == parameters.size(), "AddResiduals: a parameter is listed twice");
-  std::vector<double*> blocks;
-  for (int index : parameters) blocks.push_back(ScaledValue(index));
-  Group& target = *groups_[static_cast<std::size_t>(group)];
-  target.blocks.push_back(problem_->AddResidualBlock(cost, nullptr, blocks));
-  target.num_residuals += num_residuals;
+  auto block = std::make_unique<Block>();
+  block->group = group;
+  block->parameters = parameters;
+  block->num_residuals = num_residuals;
+  block->weighting.sigma = &groups_[static_cast<std::size_t>(group)]->sigma;
+  block->weighting.loss = &loss_;
+  block->evaluate = std::move(evaluate);
+  block->copier = std::move(copier);
+  blocks_.push_back(std::move(block));
+  return &blocks_.back()->weighting;
+}
+
+void LeastSquaresProblem::AttachCost(ceres::CostFunction* cost) {
+  const Block& block = *blocks_.back();
+  Group& target = *groups_[static_cast<std::size_t>(block.group)];
+  target.blocks.push_back(problem_->AddResidualBlock(cost, nullptr, BlocksOf(block.parameters)));
+  target.block_indices.push_back(static_cast<int>(blocks_.size()) - 1);
+  target.num_residuals += block.num_residuals;
+}
+
+int LeastSquaresProblem::NumParameters() const { return static_cast<int>(parameters_.size()); }
+
+int LeastSquaresProblem::NumGroups() const { return static_cast<int>(groups_.size()); }
+
+const ParameterSpec& LeastSquaresProblem::Spec(int parameter) const {
+  Require(parameter >= 0 && parameter < static_cast<int>(parameters_.size()), "Spec: unknown parameter index");
+  return parameters_[static_cast<std::size_t>(parameter)]->spec;
+}
+
+std::unique_ptr<LeastSquaresProblem> LeastSquaresProblem::Clone() const {
+  auto clone = std::make_unique<LeastSquaresProblem>();
+  for (const auto& parameter : parameters_) {
+    ParameterSpec spec = parameter->spec;
+    spec.scale = parameter->scale;  // the resolved s_j, so both solve in the same scaled space
+    clone->AddParameter(spec);
+    clone->parameters_.back()->scaled_value = parameter->scaled_value;
+  }
+  for (const auto& group : groups_) {
+    clone->AddGroup(group->spec);
+    clone->groups_.back()->sigma = group->sigma;
+  }
+  for (const auto& block : blocks_) {
+    block->copier(*clone);
+    clone->blocks_.back()->weighting.offsets = block->weighting.offsets;
+  }
+  clone->loss_ = loss_;
+  return clone;
+}
+
+void LeastSquaresProblem::SetValues(const std::vector<double>& values) {
+  Require(values.size() == parameters_.size(), "SetValues: one value per parameter");
+  for (std::size_t j = 0; j < values.size(); ++j) {
+    Parameter& parameter = *parameters_[j];
+    const ParameterSpec& spec = parameter.spec;
+    Require(std::isfinite(values[j]), "SetValues: values must be finite");
+    Require((!spec.lower || values[j] >= *spec.lower) && (!spec.upper || values[j] <= *spec.upper),
+            "SetValues: a value lies outside its bounds");
+    parameter.scaled_value = values[j] / parameter.scale;
+    if (spec.fixed) parameter.spec.initial = values[j];
+  }
+}
+
+void LeastSquaresProblem::HoldAt(int parameter, double value) {
+  double* x = ScaledValue(parameter);
+  Parameter& held = *parameters_[static_cast<std::size_t>(parameter)];
+  Require(std::isfinite(value), "HoldAt: the value must be finite");
+  Require((!held.spec.lower || value >= *held.spec.lower) && (!held.spec.upper || value <= *held.spec.upper),
+          "HoldAt: the value lies outside the parameter's bounds");
+  held.spec.fixed = true;
+  held.spec.initial = value;
+  *x = value / held.scale;
+  problem_->SetParameterBlockConstant(x);
+}
+
+void LeastSquaresProblem::SetGroupSigma(int group, double sigma) {
+  Require(group >= 0 && group < static_cast<int>(groups_.size()), "SetGroupSigma: unknown group index");
+  Require(std::isfinite(sigma) && sigma > 0.0, "SetGroupSigma: sigma must be positive and finite");
+  groups_[static_cast<std::size_t>(group)]->sigma = sigma;
+}
+
+void LeastSquaresProblem::SetResidualOffsets(int group, const std::vector<double>& offsets) {
+  Require(group >= 0 && group < static_cast<int>(groups_.size()), "SetResidualOffsets: unknown group index");
+  const Group& target = *groups_[static_cast<std::size_t>(group)];
+  Require(offsets.empty() || static_cast<int>(offsets.size()) == target.num_residuals,
+          "SetResidualOffsets: one offset per residual of the group, or none");
+  std::size_t next = 0;
+  for (int index : target.block_indices) {
+    Block& block = *blocks_[static_cast<std::size_t>(index)];
+    if (offsets.empty()) {
+      block.weighting.offsets.clear();
+      continue;
+    }
+    const auto count = static_cast<std::size_t>(block.num_residuals);
+    block.weighting.offsets.assign(offsets.begin() + static_cast<std::ptrdiff_t>(next),
+                                   offsets.begin() + static_cast<std::ptrdiff_t>(next + count));
+    next += count;
+  }
+}
+
+std::vector<Eigen::VectorXd> LeastSquaresProblem::RawResiduals(bool with_offsets, bool* evaluated) const {
+  *evaluated = true;
+  std::vector<Eigen::VectorXd> out;
+  std::array<double, kMaxParametersPerBlock> physical{};
+  std::array<const double*, kMaxParametersPerBlock> pointers{};
+  for (const auto& group : groups_) {
+    Eigen::VectorXd residuals(group->num_residuals);
+    Eigen::Index row = 0;
+    for (int index : group->block_indices) {
+      const Block& block = *blocks_[static_cast<std::size_t>(index)];
+      for (std::size_t k = 0; k < block.parameters.size(); ++k) {
+        const Parameter& parameter = *parameters_[static_cast<std::size_t>(block.parameters[k])];
+        physical[k] = parameter.scale * parameter.scaled_value;
+        pointers[k] = &physical[k];
+      }
+      double* r = residuals.data() + row;
+      if (!block.evaluate(pointers.data(), r)) *evaluated = false;
+      if (with_offsets && !block.weighting.offsets.empty()) {
+        for (int i = 0; i < block.num_residuals; ++i) r[i] += block.weighting.offsets[static_cast<std::size_t>(i)];
+      }
+      row += block.num_residuals;
+    }
+    out.push_back(std::move(residuals));
+  }
+  return out;
+}
+
+std::optional<std::vector<Eigen::VectorXd>> LeastSquaresProblem::Residuals() const {
+  bool evaluated = false;
+  std::vector<Eigen::VectorXd> residuals = RawResiduals(false, &evaluated);
+  if (!evaluated) return std::nullopt;
+  return residuals;
 }
 
 std::vector<double> LeastSquaresProblem::Values() const {

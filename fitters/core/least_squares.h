@@ -40,10 +40,18 @@
 // sees), no covariance is reported: the result names the parameters of each
 // null direction as not identifiable. Residuals that are not independent
 // (autocorrelated time series) make these intervals too narrow; the group
-// statistics report the lag-1 autocorrelation so a caller can tell. A model
+// statistics report the lag-1 autocorrelation, and by default a clearly
+// autocorrelated group has its variance part inflated by the AR(1) factor and
+// its degrees of freedom taken from the effective sample size
+// (autocorrelation_widening.h, SolveOptions::widen_for_autocorrelation). A model
 // that is undefined at a trial point may return non-finite residuals: the step
 // is rejected, and nothing is printed (logging is silent; outcomes are in the
 // FitResult). Accuracy on the NIST StRD nonlinear regression sets: docs/nist-strd.md.
+//
+// Beyond Wald (docs/intervals.md). Residual offsets δ_g (r + δ before weighting)
+// and Clone() let bootstrap.h refit resampled data on other threads without
+// touching the caller's models; profile.h inverts the objective for one
+// parameter; robust_loss.h replaces Σz² by Σρ(z²) for logs with spikes.
 
 #include <ceres/ceres.h>
 
@@ -53,7 +61,10 @@
 #include <memory>
 #include <optional>
 #include <string>
+#include <functional>
 #include <vector>
+
+#include "fitters/core/robust_loss.h"
 
 namespace coilspin::core {
 
@@ -85,6 +96,14 @@ struct SolveOptions {
   bool residual_variance_from_data = true;
   // A singular value of J below this fraction of the largest marks a null direction.
   double rank_tolerance = 1e-10;
+  // Inflate the variance part of groups with clearly autocorrelated residuals
+  // by (1+ρ₁)/(1−ρ₁) and take their degrees of freedom from n_eff
+  // (autocorrelation_widening.h). With known σ_g the quantile stays normal.
+  bool widen_for_autocorrelation = true;
+  // Loss on the weighted residuals (robust_loss.h). A robust loss needs a noise
+  // scale: either estimate_group_sigmas (σ_g from 1.4826·MAD of the residuals)
+  // or σ_g known (residual_variance_from_data = false).
+  RobustLoss loss = RobustLoss::kSquared;
 
   bool IsValid(std::string* error) const;
 };
@@ -120,6 +139,12 @@ struct GroupStatistics {
   // v_gj / Σ_g v_gj for every parameter, in the order added (0 for fixed ones).
   std::vector<double> information_share;
   double fitted_degrees_of_freedom = 0.0;  // h_g = trace(C·J_gᵀJ_g); Σ_g h_g = p
+  // Autocorrelation widening (autocorrelation_widening.h): whether it was
+  // applied, the factor f_g on the group's variance part (1 when not), and
+  // n_eff = n_g/f_g (n_g when not).
+  bool widened_for_autocorrelation = false;
+  double variance_inflation = 1.0;
+  double effective_num_residuals = 0.0;
 };
 
 struct FitResult {
@@ -141,6 +166,7 @@ struct FitResult {
   std::vector<GroupStatistics> groups;
   // Each null direction of JᵀJ, as the names of the parameters it involves.
   std::vector<std::vector<std::string>> not_identifiable;
+  SolveOptions options;              // the options of this solve (loss, widening, …)
 
   const ParameterEstimate& Get(const std::string& name) const;  // asserts the name exists
   int IndexOf(const std::string& name) const;                     // -1 when absent
@@ -176,16 +202,51 @@ class LeastSquaresProblem {
   // Current values (physical) of all parameters, e.g. after Solve.
   std::vector<double> Values() const;
 
+  int NumParameters() const;
+  int NumGroups() const;
+  const ParameterSpec& Spec(int parameter) const;  // as added (fixed and initial as last held)
+
+  // An independent problem with the same parameters (specs, scales, current
+  // values, fixed ones), groups (current σ_g), residual blocks and residual
+  // offsets. The blocks share the models given to AddResiduals, read-only: a
+  // model evaluated from several clones on several threads must not change
+  // state in operator() (no mutable members), which Ceres' const call implies.
+  std::unique_ptr<LeastSquaresProblem> Clone() const;
+
+  // Sets the current values (physical, every parameter in the order added; a
+  // fixed parameter is then held at its new value). Each must lie in its bounds.
+  void SetValues(const std::vector<double>& values);
+  // Fixes a parameter at `value` (physical, within its bounds) for later solves.
+  void HoldAt(int parameter, double value);
+  void SetGroupSigma(int group, double sigma);
+  // Offsets δ added to group g's unweighted residuals before weighting, r + δ
+  // (n_g values in the order the residuals were added); empty removes them.
+  void SetResidualOffsets(int group, const std::vector<double>& offsets);
+  // Unweighted residuals r of each group (without offsets) at the current
+  // values; nullopt when a model fails to evaluate.
+  std::optional<std::vector<Eigen::VectorXd>> Residuals() const;
+
  private:
   struct Parameter;
   struct Group;
+  struct Block;
   static constexpr int kMaxParametersPerBlock = 16;
 
+  // What a block's cost function reads from its problem at each evaluation.
+  struct Weighting {
+    const double* sigma = nullptr;     // the group's σ_g, may change between solves
+    const RobustLoss* loss = nullptr;  // the problem's loss of the current solve
+    std::vector<double> offsets;       // δ per residual of the block; empty: none
+  };
+  using RawEvaluation = std::function<bool(const double* const*, double*)>;
+  using BlockCopier = std::function<void(LeastSquaresProblem&)>;
+
+  // z̃ = robust( (r + δ)/σ_g ), with θ = s·x.
   template <class Model>
   struct Scaled {
-    Model model;
+    std::shared_ptr<const Model> model;
     std::vector<double> scales;
-    const double* sigma;  // owned by the problem's group, may change between solves
+    const Weighting* weighting;  // owned by the problem's block
     int num_residuals;
     template <typename T>
     bool operator()(T const* const* x, T* r) const {
@@ -195,9 +256,12 @@ class LeastSquaresProblem {
         physical[k] = x[k][0] * scales[k];  // θ = s·x
         pointers[k] = &physical[k];
       }
-      if (!model(pointers.data(), r)) return false;
+      if (!(*model)(pointers.data(), r)) return false;
+      const bool offset = !weighting->offsets.empty();
       for (int i = 0; i < num_residuals; ++i) {
-        r[i] /= *sigma;
+        T z = offset ? r[i] + weighting->offsets[static_cast<std::size_t>(i)] : r[i];
+        z /= *weighting->sigma;
+        r[i] = RobustResidual(z, *weighting->loss);
         // A trial step that overflows (exp of a wild argument) is reported as a
         // failed evaluation: Ceres rejects the step without building its long
         // per-block diagnostic for a non-finite value.
@@ -214,9 +278,14 @@ class LeastSquaresProblem {
 
   double* ScaledValue(int parameter);
   double ScaleOf(int parameter) const;
-  const double* SigmaOf(int group) const;
-  void RegisterBlock(int group, ceres::CostFunction* cost, const std::vector<int>& parameters,
-                     int num_residuals);
+  template <class Model>
+  void AddShared(int group, const std::vector<int>& parameters, int num_residuals,
+                 std::shared_ptr<const Model> model);
+  // Checks and records a new block; returns its weighting for the cost function.
+  const Weighting* NewBlock(int group, const std::vector<int>& parameters, int num_residuals,
+                            RawEvaluation evaluate, BlockCopier copier);
+  void AttachCost(ceres::CostFunction* cost);  // to the block NewBlock made last
+  std::vector<Eigen::VectorXd> RawResiduals(bool with_offsets, bool* evaluated) const;
 
   // Solving (solve.cc), the covariance step (analysis.cc) and the result (report.cc).
   std::vector<int> EstimatedParameters() const;
@@ -238,19 +307,32 @@ class LeastSquaresProblem {
   std::unique_ptr<ceres::Problem> problem_;
   std::vector<std::unique_ptr<Parameter>> parameters_;
   std::vector<std::unique_ptr<Group>> groups_;
+  std::vector<std::unique_ptr<Block>> blocks_;  // in order of addition
+  RobustLoss loss_ = RobustLoss::kSquared;      // set by each Solve from its options
 };
 
 template <class Model>
 void LeastSquaresProblem::AddResiduals(int group, const std::vector<int>& parameters,
                                        int num_residuals, Model model) {
+  AddShared(group, parameters, num_residuals, std::make_shared<const Model>(std::move(model)));
+}
+
+template <class Model>
+void LeastSquaresProblem::AddShared(int group, const std::vector<int>& parameters, int num_residuals,
+                                    std::shared_ptr<const Model> model) {
   constexpr int kStride = 4;
+  const RawEvaluation evaluate = [model](const double* const* p, double* r) { return (*model)(p, r); };
+  const BlockCopier copier = [group, parameters, num_residuals, model](LeastSquaresProblem& target) {
+    target.AddShared(group, parameters, num_residuals, model);
+  };
+  const Weighting* weighting = NewBlock(group, parameters, num_residuals, evaluate, copier);
   std::vector<double> scales;
   for (int index : parameters) scales.push_back(ScaleOf(index));
-  auto* functor = new Scaled<Model>{std::move(model), scales, SigmaOf(group), num_residuals};
+  auto* functor = new Scaled<Model>{model, scales, weighting, num_residuals};
   auto* cost = new ceres::DynamicAutoDiffCostFunction<Scaled<Model>, kStride>(functor);
   for (std::size_t k = 0; k < parameters.size(); ++k) cost->AddParameterBlock(1);
   cost->SetNumResiduals(num_residuals);
-  RegisterBlock(group, cost, parameters, num_residuals);
+  AttachCost(cost);
 }
 
 // Student-t quantile t_{q, ν} (Boost.Math); ν = ∞ gives the normal quantile.

@@ -79,9 +79,20 @@ struct TorqueSpeedLine {
   std::vector<TorqueSpeedPoint> points;
 };
 
+// How the intervals were made (docs/intervals.md).
+struct IntervalReport {
+  std::string method = "wald";        // "wald" | "profile" | "bootstrap"
+  std::string robust_loss = "none";   // "none" | "huber" | "cauchy"
+  int replicates = 0;                 // bootstrap: replicates that converged
+  int failed_replicates = 0;
+  unsigned long long seed = 0;        // bootstrap seed
+  std::vector<std::string> notes;     // sides not found, widened channels, ...
+};
+
 struct MotorEstimate {
   std::string motor_label;
   double confidence = 0.95;
+  IntervalReport intervals;
   std::vector<QuantityEstimate> parameters;
   std::vector<std::pair<std::string, std::string>> not_identified;  // key, reason
   std::vector<QuantityEstimate> ratios;

@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "fitters/core/autocorrelation_widening.h"
 #include "fitters/core/group_covariance.h"
 #include "fitters/core/least_squares.h"
 
@@ -30,7 +31,19 @@ struct LeastSquaresProblem::Group {
   GroupSpec spec;
   double sigma = 1.0;  // σ_g of the next solve; re-estimated with estimate_group_sigmas
   std::vector<ceres::ResidualBlockId> blocks;
+  std::vector<int> block_indices;  // into blocks_, in order of addition
   int num_residuals = 0;
+};
+
+// One residual block as added: enough to evaluate it without Ceres and to add
+// the same block (sharing the model) to another problem.
+struct LeastSquaresProblem::Block {
+  int group = -1;
+  std::vector<int> parameters;
+  int num_residuals = 0;
+  Weighting weighting;     // read by the block's cost function
+  RawEvaluation evaluate;  // the model: unweighted r from physical parameters
+  BlockCopier copier;      // AddShared of the same model into another problem
 };
 
 struct GroupEvaluation {
@@ -45,6 +58,7 @@ struct FitAnalysis {
   std::vector<std::vector<int>> null_directions;  // positions in the estimated list
   bool has_covariance = false;
   CovarianceBreakdown breakdown;
+  std::vector<AutocorrelationWidening> widening;  // per group; none applied when empty
   std::string failure;  // why no usable covariance; empty when there is one
 };
 

@@ -31,6 +31,7 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
   if (analysis.evaluated) result.final_cost = 0.5 * Stack(analysis.groups).weighted_residuals.squaredNorm();
   result.num_estimated = static_cast<int>(p);
   result.confidence = options.confidence;
+  result.options = options;
   for (const auto& group : groups_) result.num_residuals += group->num_residuals;
   result.covariance = Eigen::MatrixXd::Zero(count, count);
   result.correlation = Eigen::MatrixXd::Zero(count, count);
@@ -87,6 +88,12 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
     statistics.num_residuals = group.num_residuals;
     statistics.sigma = group.sigma;
     statistics.information_share.assign(static_cast<std::size_t>(count), 0.0);
+    statistics.effective_num_residuals = group.num_residuals;
+    if (g < analysis.widening.size()) {
+      statistics.widened_for_autocorrelation = analysis.widening[g].widened;
+      statistics.variance_inflation = analysis.widening[g].inflation;
+      statistics.effective_num_residuals = analysis.widening[g].effective_num_residuals;
+    }
     if (analysis.evaluated) {
       const Eigen::VectorXd unweighted = analysis.groups[g].weighted_residuals * group.sigma;
       statistics.rms = RootMeanSquare(unweighted);

@@ -177,6 +177,7 @@ SolveRun LeastSquaresProblem::SolveWithActiveBounds(const SolveOptions& options,
 FitResult LeastSquaresProblem::Solve(const SolveOptions& options) {
   const QuietCeresLog quiet;  // failures are reported in the result, never printed
   const std::vector<int> estimated = EstimatedParameters();
+  loss_ = options.loss;
   std::string error;
   std::string refusal;
   if (!options.IsValid(&error)) refusal = "invalid options: " + error;

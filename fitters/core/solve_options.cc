@@ -39,6 +39,11 @@ bool SolveOptions::IsValid(std::string* error) const {
                 "estimate_group_sigmas takes the noise levels from the residuals, so they are not known "
                 "exactly: residual_variance_from_data must stay true");
   }
+  if (loss != RobustLoss::kSquared && residual_variance_from_data && !estimate_group_sigmas) {
+    return Fail(error, "the " + RobustLossToString(loss) +
+                           " loss measures residuals in units of sigma_g, so the noise must be known "
+                           "(residual_variance_from_data = false) or estimated robustly (estimate_group_sigmas)");
+  }
   return true;
 }
 

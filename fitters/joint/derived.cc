@@ -5,6 +5,7 @@
 #include <functional>
 #include <limits>
 
+#include "fitters/core/bootstrap.h"
 #include "fitters/core/least_squares.h"
 
 namespace coilspin::joint {
@@ -90,6 +91,29 @@ std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& 
   q.tests = tests;
   if (formula.at_voltage) q.at_voltage_V = voltage_V;
   if (formula.at_voltage && !e.Find("brush_drop")) q.note = "brush drop not determined: taken as 0 V";
+  return q;
+}
+
+std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula& formula, const MotorEstimate& e,
+                                                     double voltage_V,
+                                                     const std::vector<std::vector<double>>& theta_replicates) {
+  std::optional<QuantityEstimate> q = DeriveWithInterval(formula, e, voltage_V);  // value, tests, notes
+  if (!q || theta_replicates.empty()) return q;
+  std::vector<double> samples;
+  double sum = 0.0, sum_sq = 0.0;
+  for (const auto& theta : theta_replicates) {
+    const double g = formula.value(ValuesFrom(e, theta));
+    samples.push_back(g);
+    sum += g;
+    sum_sq += g * g;
+  }
+  const double n = static_cast<double>(samples.size());
+  const double mean = sum / n;
+  q->std_error = n > 1.0 ? std::sqrt(std::max(0.0, (sum_sq - n * mean * mean) / (n - 1.0))) : 0.0;
+  const core::PercentileBounds bounds = core::Percentiles(samples, e.confidence);
+  q->ci_low = bounds.low;
+  q->ci_high = bounds.high;
+  q->degrees_of_freedom = std::numeric_limits<double>::quiet_NaN();  // not a t interval
   return q;
 }
 

@@ -7,6 +7,7 @@
 // both move together in the differences.
 
 #include <optional>
+#include <vector>
 
 #include "fitters/core/motor_estimate.h"
 #include "src/model/derived_quantities.h"
@@ -19,6 +20,13 @@ model::ParameterValues ValuesOf(const MotorEstimate& estimate);
 // Empty when a parameter the formula uses is not in the estimate's covariance.
 std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& formula,
                                                    const MotorEstimate& estimate, double voltage_V);
+
+// The same quantity from bootstrap replicates: value at the estimate, std_error the
+// replicates' standard deviation, percentile interval at the estimate's confidence.
+// theta_replicates: one vector per replicate, in the order of correlation_names.
+std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula& formula,
+                                                     const MotorEstimate& estimate, double voltage_V,
+                                                     const std::vector<std::vector<double>>& theta_replicates);
 
 // The torque–speed line at V from stall to no-load speed, `points` points.
 std::optional<TorqueSpeedLine> TorqueSpeed(const MotorEstimate& estimate, double voltage_V, int points);

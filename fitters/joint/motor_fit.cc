@@ -234,9 +234,32 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;
   solve.group_sigma_rounds = kGroupSigmaRounds;
+  solve.loss = options.loss;
   core::FitResult fit = problem.Solve(solve);
   locked_rotor::AddVoltageNoiseCovariance(lr, parameters, &fit);
   step::AddStepVoltageNoiseCovariance(st, kt_name, parameters, &fit);
+  e.intervals.method = IntervalMethodName(options.intervals.method);
+  e.intervals.robust_loss = options.loss == core::RobustLoss::kSquared ? "none" : core::RobustLossToString(options.loss);
+  std::optional<core::BootstrapResult> bootstrap;
+  if (fit.usable && options.intervals.method == IntervalMethod::kProfile) {
+    std::vector<std::string> names;
+    for (const auto& info : kPhysical) names.push_back(info.key);
+    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes);
+  }
+  if (fit.usable && options.intervals.method == IntervalMethod::kBootstrap) {
+    bootstrap = ApplyBootstrapIntervals(problem, options.intervals, &fit, &e.intervals.notes);
+    e.intervals.seed = options.intervals.seed;
+    if (bootstrap) {
+      e.intervals.replicates = static_cast<int>(bootstrap->replicates.size());
+      e.intervals.failed_replicates = bootstrap->failed;
+    }
+  }
+  for (const auto& g : fit.groups)
+    if (g.widened_for_autocorrelation)
+      e.intervals.notes.push_back(g.name + ": residuals autocorrelated (lag-1 " + Format("%.2f", g.lag1_autocorrelation) +
+                                  "): its share of the variance widened by " + Format("%.2f", g.variance_inflation) +
+                                  " (effective sample size " + Format("%.0f", g.effective_num_residuals) + " of " +
+                                  std::to_string(g.num_residuals) + "); --intervals bootstrap resamples blocks instead");
   e.solver.push_back(core::ToSolverSummary(fit));
 
   // 4. Each test reports its residuals (and the locked-rotor test its own notes).
@@ -296,6 +319,18 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                          "that bias");
   WarnStrongCorrelations(&e);
 
+  // Bootstrap replicates in the covariance order, for derived quantities.
+  std::vector<std::vector<double>> theta_replicates;
+  if (bootstrap)
+    for (const auto& r : bootstrap->replicates) {
+      std::vector<double> theta;
+      for (const auto& name : e.correlation_names) theta.push_back(r[static_cast<std::size_t>(parameters.Index(name))]);
+      theta_replicates.push_back(std::move(theta));
+    }
+  const auto derive = [&](const model::DerivedFormula& f, double voltage_V) {
+    return bootstrap ? DeriveFromReplicates(f, e, voltage_V, theta_replicates) : DeriveWithInterval(f, e, voltage_V);
+  };
+
   // 6. Ratios the coast (or a step) determines on its own.
   if (sd.usable || st.usable) {
     if (mechanics == spin_down::Mechanics::kRatios) {
@@ -315,7 +350,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
            [](const model::ParameterValues& p) { return p.at("torque_constant") / p.at("inertia"); }}};
       for (const auto& f : ratios) {
         if (f.key == std::string("torque_constant_over_inertia") && !st.usable) continue;
-        if (auto q = DeriveWithInterval(f, e, 0.0)) e.ratios.push_back(*q);
+        if (auto q = derive(f, 0.0)) e.ratios.push_back(*q);
       }
     }
   } else if (!coasts.empty()) {
@@ -328,7 +363,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   const double at_voltage_V = options.at_voltage_V.value_or(HighestLevel(lr, nl));
   for (const auto& formula : model::DerivedFormulas(ValuesOf(e), at_voltage_V)) {
     if (formula.at_voltage && !(at_voltage_V > 0.0)) continue;
-    if (auto q = DeriveWithInterval(formula, e, at_voltage_V)) e.derived.push_back(*q);
+    if (auto q = derive(formula, at_voltage_V)) e.derived.push_back(*q);
   }
   if (at_voltage_V > 0.0) e.torque_speed = TorqueSpeed(e, at_voltage_V, kTorqueSpeedPoints);
 

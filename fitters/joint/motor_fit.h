@@ -23,6 +23,8 @@
 #include <vector>
 
 #include "fitters/core/motor_estimate.h"
+#include "fitters/core/robust_loss.h"
+#include "fitters/joint/interval_methods.h"
 #include "fitters/locked_rotor/locked_rotor_fit.h"
 #include "src/ingest/bench_log.h"
 #include "src/ingest/test_kind.h"
@@ -44,6 +46,8 @@ struct MotorFitOptions {
   std::optional<double> counts_per_rev;      // encoder, for the quantisation of position logs
   double gear_ratio = 1.0;
   double consistency_tolerance = units::kDefaultKtKeTolerance;  // |Kt/Ke − 1| allowed
+  IntervalOptions intervals;                                       // wald | profile | bootstrap
+  core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
 
   bool IsValid(std::string* error) const;
 };

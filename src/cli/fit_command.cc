@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <ostream>
 
+#include "fitters/core/bootstrap_progress.h"
 #include "fitters/joint/motor_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
@@ -61,6 +62,14 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
       ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
   c->add_option("--confidence", a->confidence, "Two-sided interval level, e.g. 0.95")
       ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
+  c->add_option("--intervals", a->intervals,
+                "Interval method: wald (default; Student-t, widened for autocorrelated residuals), profile "
+                "(profile likelihood), bootstrap (moving-block, percentile)")
+      ->check(CLI::IsMember({"wald", "profile", "bootstrap"}));
+  c->add_option("--replicates", a->replicates, "Bootstrap replicates (default 200)")->check(CLI::Range(10, 100000));
+  c->add_option("--seed", a->seed, "Bootstrap seed (fixed by default, so results are reproducible)");
+  c->add_option("--robust", a->robust, "Robust loss for logs with spikes: huber or cauchy (reported in the result)")
+      ->check(CLI::IsMember({"huber", "cauchy"}));
   c->add_option("--column", a->column_specs,
                 "Header of a column that does not follow 'quantity [unit]', e.g. --column speed=\"Tach (RPM)\"");
   c->add_option("--unit", a->unit_specs, "Unit of a quantity whose header names none, e.g. --unit current=mA");
@@ -111,6 +120,13 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   options.counts_per_rev = flag_read.counts_per_rev;
   options.gear_ratio = flag_read.gear_ratio;
   if (a.tolerance) options.consistency_tolerance = *a.tolerance;
+  options.intervals.method = joint::IntervalMethodFromString(a.intervals).value_or(joint::IntervalMethod::kWald);
+  if (a.replicates) options.intervals.replicates = *a.replicates;
+  if (a.seed) options.intervals.seed = *a.seed;
+  if ((a.replicates || a.seed) && options.intervals.method != joint::IntervalMethod::kBootstrap)
+    throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--replicates and --seed apply to --intervals bootstrap only");
+  if (!a.quiet) options.intervals.progress = core::StderrBootstrapProgress();
+  if (!a.robust.empty()) options.loss = *core::RobustLossFromString(a.robust);
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
 
@@ -124,7 +140,12 @@ int RunFit(const FitArguments& a, std::ostream& out) {
 
   MotorEstimate estimate = joint::FitMotor(logs, options);
   estimate.settings.push_back({"confidence", Text(options.confidence)});
-  estimate.settings.push_back({"intervals", "wald-student-t"});
+  estimate.settings.push_back({"intervals", a.intervals});
+  if (options.intervals.method == joint::IntervalMethod::kBootstrap) {
+    estimate.settings.push_back({"bootstrap_replicates", std::to_string(options.intervals.replicates)});
+    estimate.settings.push_back({"bootstrap_seed", std::to_string(options.intervals.seed)});
+  }
+  estimate.settings.push_back({"robust_loss", a.robust.empty() ? "none" : a.robust});
   if (options.locked_rotor.winding_temperature_degC)
     estimate.settings.push_back({"winding_temperature_degC", Text(*options.locked_rotor.winding_temperature_degC)});
   if (options.locked_rotor.reference_temperature_degC)

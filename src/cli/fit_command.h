@@ -23,6 +23,10 @@ struct FitArguments {
   std::optional<double> confidence;
   std::optional<double> at_voltage_V;
   std::optional<double> tolerance;
+  std::string intervals = "wald";         // wald | profile | bootstrap
+  std::optional<int> replicates;          // bootstrap
+  std::optional<unsigned long long> seed; // bootstrap
+  std::string robust;                     // "" | huber | cauchy
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined

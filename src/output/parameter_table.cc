@@ -42,7 +42,13 @@ void Section(std::ostringstream& out, const char* title, const std::vector<Quant
 std::string ParameterTable(const MotorEstimate& e) {
   std::ostringstream out;
   char title[128];
-  std::snprintf(title, sizeof title, "%.4g %% intervals (two-sided, Student-t)", 100.0 * e.confidence);
+  const std::string& m = e.intervals.method;
+  const std::string kind = m == "bootstrap" ? "moving-block bootstrap, percentile"
+                           : m == "profile" ? "profile likelihood"
+                                            : "Student-t";
+  const std::string loss = e.intervals.robust_loss == "none" ? "" : ", " + e.intervals.robust_loss + " loss";
+  std::snprintf(title, sizeof title, "%.4g %% intervals (two-sided, %s%s)", 100.0 * e.confidence, kind.c_str(),
+                loss.c_str());
   out << "coilspin fit" << (e.motor_label.empty() ? "" : " of " + e.motor_label) << " — " << title << "\n\n";
   Section(out, "parameters", e.parameters);
   if (!e.ratios.empty()) out << "\n";
@@ -74,6 +80,10 @@ std::string ParameterTable(const MotorEstimate& e) {
           << r.samples << (r.samples == 1 ? " residual" : " residuals") << ", lag-1 autocorrelation "
           << FormatValue(r.lag1_autocorrelation, 0.0, 2) << "\n";
     }
+  }
+  if (!e.intervals.notes.empty()) {
+    out << "\nintervals\n";
+    for (const auto& n : e.intervals.notes) out << "  " << n << "\n";
   }
   if (!e.warnings.empty()) {
     out << "\nwarnings\n";

@@ -60,6 +60,13 @@ std::string ResultJson(const MotorEstimate& e) {
   j["format"] = kResultFormat;
   if (!e.motor_label.empty()) j["motor"] = {{"label", e.motor_label}};
   j["confidence"] = e.confidence;
+  Json intervals = {{"method", e.intervals.method}, {"robust_loss", e.intervals.robust_loss}};
+  if (e.intervals.method == "bootstrap")
+    intervals.update({{"replicates", e.intervals.replicates},
+                      {"failed_replicates", e.intervals.failed_replicates},
+                      {"seed", e.intervals.seed}});
+  intervals["notes"] = e.intervals.notes;
+  j["intervals"] = intervals;
   j["parameters"] = QuantitiesJson(e.parameters);
   Json missing = Json::object();
   for (const auto& [key, reason] : e.not_identified) missing[key] = reason;

@@ -103,7 +103,12 @@ core::FitResult Fit(const DataSet& data, int start) {
     for (std::size_t k = 0; k < Form::kPredictors; ++k) residual.x[k] = row[k + 1];
     problem.AddResiduals(group, indices, 1, residual);
   }
-  return problem.Solve(core::SolveOptions());
+  core::SolveOptions options;
+  // NIST's certified standard deviations assume independent residuals (the
+  // classical s²·(JᵀJ)⁻¹); several sets' residuals are autocorrelated, which the
+  // default widening would count.
+  options.widen_for_autocorrelation = false;
+  return problem.Solve(options);
 }
 
 using Fitter = std::function<core::FitResult(const DataSet&, int)>;

@@ -1,0 +1,85 @@
+#include "fitters/joint/interval_methods.h"
+
+#include <cmath>
+
+#include "fitters/core/profile.h"
+
+namespace coilspin::joint {
+
+const char* IntervalMethodName(IntervalMethod method) {
+  switch (method) {
+    case IntervalMethod::kWald: return "wald";
+    case IntervalMethod::kProfile: return "profile";
+    case IntervalMethod::kBootstrap: return "bootstrap";
+  }
+  return "wald";
+}
+
+std::optional<IntervalMethod> IntervalMethodFromString(const std::string& text) {
+  for (IntervalMethod m : {IntervalMethod::kWald, IntervalMethod::kProfile, IntervalMethod::kBootstrap})
+    if (text == IntervalMethodName(m)) return m;
+  return std::nullopt;
+}
+
+void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
+                           core::FitResult* fit, std::vector<std::string>* notes) {
+  core::ProfileOptions options;
+  options.confidence = fit->confidence;
+  for (const auto& name : names) {
+    const int index = fit->IndexOf(name);
+    if (index < 0 || fit->parameters[static_cast<std::size_t>(index)].fixed) continue;
+    const core::ProfileInterval profile = core::Profile(problem, *fit, name, options);
+    core::ParameterEstimate& p = fit->parameters[static_cast<std::size_t>(index)];
+    if (!profile.usable) {
+      notes->push_back(name + ": no profile (" + profile.message + "); Wald interval kept");
+      continue;
+    }
+    if (profile.low.found) p.ci_low = profile.low.bound;
+    else notes->push_back(name + ": profile lower side not found (" + profile.low.reason + "); Wald side kept");
+    if (profile.high.found) p.ci_high = profile.high.bound;
+    else notes->push_back(name + ": profile upper side not found (" + profile.high.reason + "); Wald side kept");
+  }
+}
+
+std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
+                                                             const IntervalOptions& options, core::FitResult* fit,
+                                                             std::vector<std::string>* notes) {
+  core::BootstrapOptions b;
+  b.replicates = options.replicates;
+  b.seed = options.seed;
+  b.confidence = fit->confidence;
+  b.progress = options.progress;
+  core::BootstrapResult result = core::Bootstrap(problem, *fit, b);
+  if (!result.usable) {
+    notes->push_back("bootstrap not usable (" + result.message + "); Wald intervals kept");
+    return std::nullopt;
+  }
+  if (result.failed > 0) notes->push_back(result.message);
+  // The replicates' covariance, so correlations and warnings agree with the intervals.
+  const Eigen::Index p = fit->covariance.rows();
+  const double n = static_cast<double>(result.replicates.size());
+  Eigen::VectorXd mean = Eigen::VectorXd::Zero(p);
+  for (const auto& r : result.replicates) mean += Eigen::Map<const Eigen::VectorXd>(r.data(), p) / n;
+  Eigen::MatrixXd covariance = Eigen::MatrixXd::Zero(p, p);
+  for (const auto& r : result.replicates) {
+    const Eigen::VectorXd d = Eigen::Map<const Eigen::VectorXd>(r.data(), p) - mean;
+    covariance += d * d.transpose() / (n - 1.0);
+  }
+  fit->covariance = covariance;
+  for (Eigen::Index a = 0; a < p; ++a)
+    for (Eigen::Index c = 0; c < p; ++c) {
+      const double scale = std::sqrt(covariance(a, a) * covariance(c, c));
+      fit->correlation(a, c) = scale > 0.0 ? covariance(a, c) / scale : 0.0;
+    }
+  for (std::size_t j = 0; j < fit->parameters.size(); ++j) {
+    if (fit->parameters[j].fixed) continue;
+    const core::ParameterEstimate& q = result.parameters[j];
+    fit->parameters[j].std_error = q.std_error;
+    fit->parameters[j].ci_low = q.ci_low;
+    fit->parameters[j].ci_high = q.ci_high;
+    fit->parameters[j].degrees_of_freedom = q.degrees_of_freedom;
+  }
+  return result;
+}
+
+}  // namespace coilspin::joint

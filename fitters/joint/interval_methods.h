@@ -1,0 +1,45 @@
+#pragma once
+// The interval method of a motor fit (docs/intervals.md):
+//   wald       θ ± t·se from the covariance (with the input-noise terms and the
+//              effective-sample-size widening of autocorrelated channels); the default;
+//   profile    profile-likelihood intervals for the model parameters (asymmetric
+//              where the model is curved, e.g. L and J), Wald where a side is not
+//              found, with the reason;
+//   bootstrap  moving-block bootstrap over each test's residuals, percentile
+//              intervals; derived quantities from the same replicates.
+// Both alternatives start from the solved joint problem and never change it.
+
+#include <cstdint>
+#include <functional>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "fitters/core/bootstrap.h"
+#include "fitters/core/least_squares.h"
+
+namespace coilspin::joint {
+
+enum class IntervalMethod { kWald, kProfile, kBootstrap };
+
+const char* IntervalMethodName(IntervalMethod method);
+std::optional<IntervalMethod> IntervalMethodFromString(const std::string& text);
+
+struct IntervalOptions {
+  IntervalMethod method = IntervalMethod::kWald;
+  int replicates = 200;
+  std::uint64_t seed = core::kDefaultBootstrapSeed;
+  std::function<void(int done, int total, double elapsed_seconds)> progress;  // bootstrap only
+};
+
+// Profile intervals for `names` replace the Wald ones in *fit; notes say where a side was not found.
+void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
+                           core::FitResult* fit, std::vector<std::string>* notes);
+
+// Bootstrap intervals replace the Wald ones (and the replicates' covariance the
+// fit's) in *fit. Empty, with a note, when the bootstrap is not usable.
+std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
+                                                             const IntervalOptions& options, core::FitResult* fit,
+                                                             std::vector<std::string>* notes);
+
+}  // namespace coilspin::joint

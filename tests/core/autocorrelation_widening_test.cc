@@ -1,0 +1,135 @@
+// Autocorrelation widening (fitters/core/autocorrelation_widening.h): the
+// decision rule, the factor and degrees of freedom it puts into the result,
+// and the coverage of the slope interval of a line with AR(1) noise.
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <cstdio>
+
+#include "core/ar1_line.h"
+#include "fitters/core/autocorrelation_widening.h"
+#include "fitters/core/least_squares.h"
+
+namespace coilspin::core {
+namespace {
+
+using test_support::BuildLine;
+using test_support::LineFit;
+using test_support::MakeAr1Line;
+
+using test_support::kInnovationSigma;
+constexpr double kIntercept = test_support::kLineIntercept;
+constexpr double kSlope = test_support::kLineSlope;
+
+TEST(AutocorrelationWidening, DecisionFollowsTheThresholds) {
+  // From the definitions in autocorrelation_widening.h: f = (1+ρ)/(1−ρ), n_eff = n/f.
+  const AutocorrelationWidening strong = DecideWidening(100, 0.5);
+  EXPECT_TRUE(strong.widened);
+  EXPECT_NEAR(strong.inflation, 3.0, 1e-15);
+  EXPECT_NEAR(strong.effective_num_residuals, 100.0 / 3.0, 1e-12);
+  // Too few residuals for ρ̂ to mean much: never widened, whatever ρ̂.
+  EXPECT_FALSE(DecideWidening(kMinResidualsForWidening - 1, 0.9).widened);
+  EXPECT_EQ(DecideWidening(kMinResidualsForWidening - 1, 0.9).inflation, 1.0);
+  // n = 400: threshold max(0.05, 2/√400 = 0.1) = 0.1; just either side of it.
+  EXPECT_FALSE(DecideWidening(400, 0.099).widened);
+  EXPECT_TRUE(DecideWidening(400, 0.101).widened);
+  // n = 10⁴: threshold is the 0.05 floor, not 2/√n = 0.02.
+  EXPECT_FALSE(DecideWidening(10000, 0.04).widened);
+  EXPECT_TRUE(DecideWidening(10000, 0.06).widened);
+  // Negative autocorrelation is never widened (it would narrow the interval).
+  EXPECT_FALSE(DecideWidening(1000, -0.5).widened);
+}
+
+TEST(AutocorrelationWidening, WidenedFitCarriesTheFactorAndTheEffectiveDegreesOfFreedom) {
+  // One group: Cov = f·s²·C and ν = n/f − p (group_covariance.h, from the definitions),
+  // so the widened SE is √f times the unwidened one on the same data.
+  constexpr int kCount = 200;
+  const auto line = MakeAr1Line(kCount, kIntercept, kSlope, kInnovationSigma, 0.8, 7);
+  LineFit plain_fit, widened_fit;
+  BuildLine(&plain_fit, line);
+  BuildLine(&widened_fit, line);
+  SolveOptions plain;
+  plain.widen_for_autocorrelation = false;
+  const FitResult narrow = plain_fit.problem.Solve(plain);
+  const FitResult wide = widened_fit.problem.Solve(SolveOptions());
+  ASSERT_TRUE(narrow.usable && wide.usable) << narrow.message << wide.message;
+  const GroupStatistics& group = wide.groups[0];
+  ASSERT_TRUE(group.widened_for_autocorrelation);
+  EXPECT_FALSE(narrow.groups[0].widened_for_autocorrelation);
+  EXPECT_EQ(narrow.groups[0].variance_inflation, 1.0);
+  const double rho = group.lag1_autocorrelation;
+  EXPECT_NEAR(group.variance_inflation, (1.0 + rho) / (1.0 - rho), 1e-12);
+  EXPECT_NEAR(group.effective_num_residuals, kCount / group.variance_inflation, 1e-9);
+  EXPECT_NEAR(wide.Get("slope").std_error / narrow.Get("slope").std_error, std::sqrt(group.variance_inflation),
+              1e-9);
+  EXPECT_NEAR(wide.Get("slope").degrees_of_freedom, group.effective_num_residuals - 2.0, 1e-9);
+  EXPECT_NEAR(wide.covariance(0, 1) / narrow.covariance(0, 1), group.variance_inflation, 1e-9);
+  EXPECT_EQ(wide.Get("slope").value, narrow.Get("slope").value);  // the estimate itself is untouched
+}
+
+struct Coverage {
+  double rate = 0.0;
+  int widened = 0;
+};
+
+Coverage SlopeCoverage(double phi, bool widen, int replicates) {
+  Coverage out;
+  int covered = 0;
+  constexpr int kCount = 200;
+  for (int replicate = 0; replicate < replicates; ++replicate) {
+    const auto line = MakeAr1Line(kCount, kIntercept, kSlope, kInnovationSigma, phi, 5000 + replicate);
+    LineFit fit;
+    BuildLine(&fit, line);
+    SolveOptions options;
+    options.widen_for_autocorrelation = widen;
+    const FitResult result = fit.problem.Solve(options);
+    if (!result.usable) continue;
+    const ParameterEstimate& b = result.Get("slope");
+    if (b.ci_low <= kSlope && kSlope <= b.ci_high) ++covered;
+    if (result.groups[0].widened_for_autocorrelation) ++out.widened;
+  }
+  out.rate = static_cast<double>(covered) / replicates;
+  return out;
+}
+
+constexpr int kReplicates = 200;
+
+TEST(AutocorrelationWidening, RestoresCoverageOfTheSlopeUnderAr1Noise) {
+  // AR(1) noise with φ = 0.8 makes the true Var(b̂) about (1+φ)/(1−φ) = 9 times the
+  // independent-noise formula (Wilks, from memory), so the plain 95 % interval is a
+  // third as wide as it should be and covers about 2Φ(1.97/3) − 1 ≈ 49 %.
+  // Bounds: binomial SD of a rate near 0.95 over 200 replicates is 0.015; the
+  // widened interval uses an estimated ρ̂ (biased low by ≈ (1+4φ)/n, from memory),
+  // so 88–99 % allows for that bias and four binomial SDs.
+  const Coverage plain = SlopeCoverage(0.8, false, kReplicates);
+  const Coverage widened = SlopeCoverage(0.8, true, kReplicates);
+  EXPECT_LT(plain.rate, 0.70) << "plain coverage " << plain.rate;
+  EXPECT_GE(widened.rate, 0.88) << "widened coverage " << widened.rate;
+  EXPECT_LE(widened.rate, 0.99) << "widened coverage " << widened.rate;
+  EXPECT_EQ(widened.widened, kReplicates);  // ρ̂ ≈ 0.78 ≫ threshold 0.14 every time
+  std::printf("AR(1) phi = 0.8, n = 200: slope coverage %.3f plain, %.3f widened\n", plain.rate, widened.rate);
+}
+
+TEST(AutocorrelationWidening, WhiteNoiseIsRarelyWidenedAndStillCovers) {
+  // White residuals: ρ̂₁ ≈ N(−1/n, 1/n) (Bartlett, from memory), so P(ρ̂₁ > 2/√n) ≈ 2.3 %:
+  // about 5 of 200; 12 is that plus three binomial SDs (√(200·0.023) = 2.1).
+  // Coverage stays at its 95 % (Draper & Smith §1.4), ± 3 binomial SDs (0.015).
+  const Coverage white = SlopeCoverage(0.0, true, kReplicates);
+  EXPECT_LE(white.widened, 12);
+  EXPECT_GE(white.rate, 0.905);
+  EXPECT_LE(white.rate, 0.995);
+  // One seed in full: no group widened, factor exactly 1, n_eff = n.
+  const auto line = MakeAr1Line(200, kIntercept, kSlope, kInnovationSigma, 0.0, 77);
+  LineFit fit;
+  BuildLine(&fit, line);
+  const FitResult result = fit.problem.Solve(SolveOptions());
+  ASSERT_TRUE(result.usable) << result.message;
+  EXPECT_FALSE(result.groups[0].widened_for_autocorrelation) << result.groups[0].lag1_autocorrelation;
+  EXPECT_EQ(result.groups[0].variance_inflation, 1.0);
+  EXPECT_EQ(result.groups[0].effective_num_residuals, 200.0);
+  EXPECT_NEAR(result.Get("slope").degrees_of_freedom, 198.0, 1e-9);  // n − 2, Draper & Smith
+}
+
+}  // namespace
+}  // namespace coilspin::core
