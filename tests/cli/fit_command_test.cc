@@ -97,6 +97,27 @@ TEST_F(FitCommand, FreeShaftStepEndToEnd) {
   EXPECT_EQ(j["tests"][0]["kind"], "step");
 }
 
+TEST_F(FitCommand, IntervalMethodAndRobustLossAreOptionsAndInTheResult) {
+  ASSERT_EQ(RunCoilspin("fit --locked-rotor plateaus.csv --intervals bootstrap --replicates 30 --seed 5 "
+                        "--json b1.json --quiet", dir()).status, 0);
+  ASSERT_EQ(RunCoilspin("fit --locked-rotor plateaus.csv --intervals bootstrap --replicates 30 --seed 5 "
+                        "--json b2.json --quiet", dir()).status, 0);
+  EXPECT_EQ(Slurp(dir() / "b1.json"), Slurp(dir() / "b2.json"));  // fixed seed: byte-identical
+  const auto b = nlohmann::json::parse(Slurp(dir() / "b1.json"));
+  EXPECT_EQ(b["intervals"]["method"], "bootstrap");
+  EXPECT_EQ(b["intervals"]["seed"], 5);
+  EXPECT_EQ(b["intervals"]["replicates"].get<int>() + b["intervals"]["failed_replicates"].get<int>(), 30);
+  ASSERT_EQ(RunCoilspin("fit --locked-rotor plateaus.csv --robust cauchy --json r.json --quiet", dir()).status, 0);
+  const auto r = nlohmann::json::parse(Slurp(dir() / "r.json"));
+  EXPECT_EQ(r["intervals"]["robust_loss"], "cauchy");
+  EXPECT_EQ(r["intervals"]["method"], "wald");
+  // A bootstrap option without the bootstrap is a usage error, not silently ignored.
+  const RunResult bad = RunCoilspin("fit --locked-rotor plateaus.csv --replicates 30", dir());
+  EXPECT_EQ(bad.status, 2);
+  EXPECT_NE(bad.err.find("--intervals bootstrap"), std::string::npos) << bad.err;
+  EXPECT_EQ(RunCoilspin("fit --locked-rotor plateaus.csv --intervals jackknife", dir()).status, 2);
+}
+
 struct BadInput {
   std::string name;
   std::string contents;

@@ -1,0 +1,105 @@
+// The interval methods and the robust loss on a step fit (docs/intervals.md).
+// References: for a model close to linear in its parameters the profile-
+// likelihood interval equals the Wald interval (Bates & Watts, Nonlinear
+// Regression Analysis and its Applications, 1988, ch. 6 — from memory), and
+// the bootstrap standard error of a smooth estimate approaches the analytic
+// one (Efron & Tibshirani, An Introduction to the Bootstrap, 1993, ch. 6 —
+// from memory), up to its Monte-Carlo error √(1/(2B)).
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <random>
+
+#include "fitters/joint/motor_fit.h"
+#include "step/step_bench.h"
+
+namespace coilspin::testing {
+namespace {
+
+// A step with no noise on the logged voltage, so the Wald intervals carry no
+// input-noise term (which neither the profile nor the bootstrap counts).
+BenchLog QuietVoltageStep(std::uint64_t seed) {
+  const model::MotorParameters m = ServoMotor();
+  model::BenchConditions bench = StepNoise(seed, false);
+  bench.voltage_noise_sigma_V = 0.0;
+  return ToBenchLog(model::SimulateStep(m, StepFromRest(m, 24.0, false), bench), "step.csv");
+}
+
+MotorEstimate Fit(const BenchLog& log, const joint::MotorFitOptions& options) {
+  return joint::FitMotor({{TestKind::kStep, log}}, options);
+}
+
+TEST(StepIntervals, ProfileMatchesWaldWhereTheModelIsNearlyLinear) {
+  const BenchLog log = QuietVoltageStep(31);
+  const MotorEstimate wald = Fit(log, {});
+  joint::MotorFitOptions options;
+  options.intervals.method = joint::IntervalMethod::kProfile;
+  const MotorEstimate profile = Fit(log, options);
+  EXPECT_EQ(profile.intervals.method, "profile");
+  for (const char* key : {"inductance", "inertia", "resistance"}) {
+    const QuantityEstimate* w = wald.Find(key);
+    const QuantityEstimate* p = profile.Find(key);
+    ASSERT_TRUE(w && p) << key;
+    const double half_width = 0.5 * (w->ci_high - w->ci_low);
+    // 10 % of the half-width: the curvature of this model over ±2 se is slight.
+    EXPECT_NEAR(p->ci_low, w->ci_low, 0.1 * half_width) << key;
+    EXPECT_NEAR(p->ci_high, w->ci_high, 0.1 * half_width) << key;
+  }
+}
+
+TEST(StepIntervals, BootstrapStandardErrorsAgreeWithWaldAndRepeatExactly) {
+  const BenchLog log = QuietVoltageStep(32);
+  const MotorEstimate wald = Fit(log, {});
+  joint::MotorFitOptions options;
+  options.intervals.method = joint::IntervalMethod::kBootstrap;
+  options.intervals.replicates = 60;
+  const MotorEstimate a = Fit(log, options);
+  const MotorEstimate b = Fit(log, options);
+  EXPECT_EQ(a.intervals.replicates + a.intervals.failed_replicates, 60);
+  // Monte-Carlo error of an SD from 60 replicates: √(1/120) ≈ 9 %; 35 % is about 4 of them.
+  for (const char* key : {"resistance", "inductance", "back_emf_constant", "inertia"}) {
+    const double ratio = a.Find(key)->std_error / wald.Find(key)->std_error;
+    EXPECT_GT(ratio, 0.65) << key;
+    EXPECT_LT(ratio, 1.35) << key;
+    EXPECT_EQ(a.Find(key)->ci_low, b.Find(key)->ci_low) << key;  // fixed seed: reproducible
+    EXPECT_EQ(a.Find(key)->ci_high, b.Find(key)->ci_high) << key;
+  }
+}
+
+TEST(StepIntervals, RobustLossResistsSpikesInTheCurrent) {
+  const model::MotorParameters m = ServoMotor();
+  BenchLog log = QuietVoltageStep(33);
+  // 1 % of the current samples hit by spikes of 40 noise σ (a switching transient
+  // coupling into the shunt amplifier, common practice to expect).
+  std::mt19937 generator(7);
+  std::uniform_int_distribution<std::size_t> where(0, log.size() - 1);
+  const double spike_A = 40.0 * StepNoise(0, false).current_noise_sigma_A;
+  for (std::size_t k = 0; k < log.size() / 100; ++k) log.current_A[where(generator)] += spike_A;
+  const MotorEstimate squared = Fit(log, {});
+  joint::MotorFitOptions options;
+  options.loss = core::RobustLoss::kHuber;
+  const MotorEstimate huber = Fit(log, options);
+  EXPECT_EQ(huber.intervals.robust_loss, "huber");
+  // The spikes inflate the noise level a squared loss infers from its residuals
+  // (their variance is 1 % × 40² = 16 σ² on top of σ²), and so every interval; the
+  // Huber fit's scale comes from the median absolute deviation and stays at σ.
+  const double sigma_A = StepNoise(0, false).current_noise_sigma_A;
+  const auto current_sigma = [](const MotorEstimate& e) {
+    for (const auto& r : e.tests.front().residuals)
+      if (r.channel == "current") return r.sigma;
+    return 0.0;
+  };
+  EXPECT_GT(current_sigma(squared), 3.0 * sigma_A);
+  EXPECT_NEAR(current_sigma(huber), sigma_A, 0.2 * sigma_A);
+  for (const auto& [key, truth] : {std::pair<const char*, double>{"resistance", m.resistance_ohm},
+                                   {"inductance", m.inductance_H},
+                                   {"back_emf_constant", m.back_emf_constant_V_s_per_rad}}) {
+    const QuantityEstimate* q = huber.Find(key);
+    EXPECT_LT(std::fabs(q->value - truth), 4.0 * q->std_error) << key;
+    EXPECT_LT(q->std_error, squared.Find(key)->std_error) << key;  // the spikes no longer widen it
+  }
+}
+
+}  // namespace
+}  // namespace coilspin::testing
