@@ -22,18 +22,6 @@ struct JointCase {
 
 void PrintTo(const JointCase& c, std::ostream* os) { *os << c.name; }
 
-model::MotorParameters Motor(double r, double l, double k, double j, double b, double tc, double vb) {
-  model::MotorParameters m;
-  m.resistance_ohm = r;
-  m.inductance_H = l;
-  m.back_emf_constant_V_s_per_rad = k;
-  m.torque_constant_N_m_per_A = k;  // an ideal machine: Kt = Ke in SI (physics: power balance)
-  m.inertia_kg_m2 = j;
-  m.viscous_friction_N_m_s_per_rad = b;
-  m.coulomb_friction_N_m = tc;
-  m.brush_drop_V = vb;
-  return m;
-}
 
 void ExpectWithin(const MotorEstimate& e, const char* key, double truth, double tolerance) {
   const QuantityEstimate* q = e.Find(key);
@@ -70,9 +58,9 @@ TEST_P(FourTestRecovery, RecoversTheWholeMotor) {
 INSTANTIATE_TEST_SUITE_P(
     Motors, FourTestRecovery,
     ::testing::Values(
-        JointCase{"small_12V_speed", Motor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, false, false, 51},
-        JointCase{"brushed_6V_encoder", Motor(0.8, 0.3e-3, 0.012, 6e-6, 3e-6, 8e-4, 0.5), 6.0, true, false, 52},
-        JointCase{"large_24V_torque_column", Motor(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.7), 24.0, false, true, 53}),
+        JointCase{"small_12V_speed", IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, false, false, 51},
+        JointCase{"brushed_6V_encoder", IdealMotor(0.8, 0.3e-3, 0.012, 6e-6, 3e-6, 8e-4, 0.5), 6.0, true, false, 52},
+        JointCase{"large_24V_torque_column", IdealMotor(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.7), 24.0, false, true, 53}),
     [](const auto& info) { return info.param.name; });
 
 }  // namespace

@@ -27,6 +27,20 @@ struct BenchOptions {
   std::uint64_t seed = 1;
 };
 
+// An ideal machine: Kt = Ke in SI (physics: power balance).
+inline model::MotorParameters IdealMotor(double r, double l, double k, double j, double b, double tc, double vb) {
+  model::MotorParameters m;
+  m.resistance_ohm = r;
+  m.inductance_H = l;
+  m.back_emf_constant_V_s_per_rad = k;
+  m.torque_constant_N_m_per_A = k;
+  m.inertia_kg_m2 = j;
+  m.viscous_friction_N_m_s_per_rad = b;
+  m.coulomb_friction_N_m = tc;
+  m.brush_drop_V = vb;
+  return m;
+}
+
 inline model::BenchConditions Noise(std::uint64_t seed, bool encoder) {
   model::BenchConditions b;
   b.voltage_noise_sigma_V = 5e-3;
@@ -66,12 +80,12 @@ inline std::vector<joint::TestLog> SimulateBench(const model::MotorParameters& m
     logs.push_back({TestKind::kSpinDown, ToBenchLog(model::SimulateSpinDown(m, p, Noise(o.seed + 2, o.encoder)), "coast.csv")});
   }
   if (o.step) {
-    // A fast logger: 20 samples per electrical time constant, five mechanical ones logged.
+    // A fast logger: 20 samples per electrical time constant, three mechanical ones logged.
     model::FreeShaftStepPlan p;
     p.final_supply_V = top_V;
     p.sample_period_s = m.inductance_H / m.resistance_ohm / 20.0;
     p.pre_step_s = 20.0 * p.sample_period_s;
-    p.hold_s = 5.0 * m.inertia_kg_m2 * m.resistance_ohm / (m.back_emf_constant_V_s_per_rad * m.torque_constant_N_m_per_A);
+    p.hold_s = 3.0 * m.inertia_kg_m2 * m.resistance_ohm / (m.back_emf_constant_V_s_per_rad * m.torque_constant_N_m_per_A);
     p.shaft = shaft;
     logs.push_back({TestKind::kStep, ToBenchLog(model::SimulateStep(m, p, Noise(o.seed + 3, o.encoder)), "step.csv")});
   }

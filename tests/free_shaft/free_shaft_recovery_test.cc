@@ -20,18 +20,6 @@ struct MotorCase {
 
 void PrintTo(const MotorCase& c, std::ostream* os) { *os << c.name; }
 
-model::MotorParameters Motor(double r, double l, double k, double j, double b, double tc, double vb) {
-  model::MotorParameters m;
-  m.resistance_ohm = r;
-  m.inductance_H = l;
-  m.back_emf_constant_V_s_per_rad = k;
-  m.torque_constant_N_m_per_A = k;  // an ideal machine: Kt = Ke in SI (physics: power balance)
-  m.inertia_kg_m2 = j;
-  m.viscous_friction_N_m_s_per_rad = b;
-  m.coulomb_friction_N_m = tc;
-  m.brush_drop_V = vb;
-  return m;
-}
 
 void ExpectRecovered(const MotorEstimate& e, const char* key, double truth, double tolerance) {
   const QuantityEstimate* q = e.Find(key);
@@ -65,14 +53,14 @@ TEST_P(FreeShaftRecovery, RecoversMechanicsFromThreeTests) {
 
 INSTANTIATE_TEST_SUITE_P(
     Motors, FreeShaftRecovery,
-    ::testing::Values(MotorCase{"small_12V_speed", Motor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, false, 31},
-                      MotorCase{"small_12V_encoder", Motor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, true, 32},
-                      MotorCase{"brushed_6V_speed", Motor(0.8, 0.3e-3, 0.012, 6e-6, 3e-6, 8e-4, 0.5), 6.0, false, 33},
-                      MotorCase{"large_24V_encoder", Motor(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.0), 24.0, true, 34}),
+    ::testing::Values(MotorCase{"small_12V_speed", IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, false, 31},
+                      MotorCase{"small_12V_encoder", IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, true, 32},
+                      MotorCase{"brushed_6V_speed", IdealMotor(0.8, 0.3e-3, 0.012, 6e-6, 3e-6, 8e-4, 0.5), 6.0, false, 33},
+                      MotorCase{"large_24V_encoder", IdealMotor(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.0), 24.0, true, 34}),
     [](const auto& info) { return info.param.name; });
 
 TEST(SpinDownAlone, GivesRatiosAndSaysWhyAbsoluteValuesAreMissing) {
-  const model::MotorParameters m = Motor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0);
+  const model::MotorParameters m = IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0);
   BenchOptions o;
   o.locked_rotor = o.no_load = false;
   o.coast_voltage = false;
@@ -91,7 +79,7 @@ TEST(SpinDownAlone, GivesRatiosAndSaysWhyAbsoluteValuesAreMissing) {
 }
 
 TEST(SpinDownWithKnownInertia, GivesAbsoluteFriction) {
-  const model::MotorParameters m = Motor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0);
+  const model::MotorParameters m = IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0);
   BenchOptions o;
   o.locked_rotor = o.no_load = false;
   o.seed = 42;
