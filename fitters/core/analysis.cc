@@ -117,6 +117,7 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     term.num_residuals = groups_[g]->num_residuals;
     term.weighted_rss = analysis.groups[g].weighted_residuals.squaredNorm();
     term.jacobian = analysis.groups[g].jacobian;
+    term.sigma_known = groups_[g]->spec.sigma_known;
     if (options.widen_for_autocorrelation) {
       // ρ̂₁ does not depend on the weight 1/σ_g, so the weighted residuals serve.
       const AutocorrelationWidening widening =
@@ -131,7 +132,8 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
   if (options.residual_variance_from_data) {
     for (std::size_t g = 0; g < groups_.size(); ++g) {
       const double residual_dof = analysis.breakdown.residual_degrees_of_freedom[g];
-      if (groups_[g]->num_residuals > 0 && !(residual_dof > kNoResidualDegreesOfFreedom)) {
+      if (groups_[g]->num_residuals > 0 && !groups_[g]->spec.sigma_known &&
+          !(residual_dof > kNoResidualDegreesOfFreedom)) {
         analysis.failure = "group '" + groups_[g]->spec.name + "' has no residual degrees of freedom (n - h = " +
                            FormatNumber(residual_dof) +
                            "), so its noise cannot be estimated from the data; give its sigma and set "
@@ -151,14 +153,14 @@ bool LeastSquaresProblem::RescaleGroupSigmas(const FitAnalysis& analysis) {
     const std::vector<Eigen::VectorXd> residuals = RawResiduals(true, &evaluated);
     if (!evaluated) return false;
     for (std::size_t g = 0; g < groups_.size(); ++g) {
-      if (groups_[g]->num_residuals == 0) continue;
+      if (groups_[g]->num_residuals == 0 || groups_[g]->spec.sigma_known) continue;
       const double scale = MedianAbsoluteDeviationScale(residuals[g]);
       if (std::isfinite(scale) && scale > 0.0) groups_[g]->sigma = scale;
     }
     return true;
   }
   for (std::size_t g = 0; g < groups_.size(); ++g) {
-    if (groups_[g]->num_residuals == 0) continue;
+    if (groups_[g]->num_residuals == 0 || groups_[g]->spec.sigma_known) continue;
     const double variance = analysis.breakdown.measured_residual_variance[g];
     // A perfect fit (s_g² = 0) cannot rescale σ_g: keep it rather than divide by zero.
     if (std::isfinite(variance) && variance > 0.0) groups_[g]->sigma *= std::sqrt(variance);

@@ -33,13 +33,14 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     const double residual_dof = group.num_residuals - fitted;
     const double measured =
         residual_dof > kNoResidualDegreesOfFreedom ? group.weighted_rss / residual_dof : not_a_number;
-    const double used = variance_from_data ? measured : 1.0;
+    const double used = variance_from_data && !group.sigma_known ? measured : 1.0;
     out.fitted_degrees_of_freedom.push_back(fitted);
     out.residual_degrees_of_freedom.push_back(residual_dof);
     const double inflation = group.variance_inflation;
     out.effective_degrees_of_freedom.push_back(
-        inflation > 1.0 ? std::max(group.num_residuals / inflation - fitted, kMinimumEffectiveDegreesOfFreedom)
-                        : residual_dof);
+        group.sigma_known ? infinity
+        : inflation > 1.0 ? std::max(group.num_residuals / inflation - fitted, kMinimumEffectiveDegreesOfFreedom)
+                          : residual_dof);
     out.residual_variance.push_back(used);
     out.measured_residual_variance.push_back(measured);
 

@@ -50,6 +50,7 @@ struct GroupTerms {
   double weighted_rss = 0.0;  // Σ (r/σ_g)² at the solution
   Eigen::MatrixXd jacobian;   // J_g = ∂(r/σ_g)/∂x, n_g × p
   double variance_inflation = 1.0;  // f_g ≥ 1 for autocorrelated residuals; 1 when independent
+  bool sigma_known = false;         // s_g² = 1 and infinite degrees of freedom for this group
 };
 
 struct CovarianceBreakdown {

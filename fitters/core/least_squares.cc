@@ -188,6 +188,13 @@ void LeastSquaresProblem::SetGroupSigma(int group, double sigma) {
   groups_[static_cast<std::size_t>(group)]->sigma = sigma;
 }
 
+void LeastSquaresProblem::GiveGroupSigma(int group, double sigma) {
+  SetGroupSigma(group, sigma);
+  Group& target = *groups_[static_cast<std::size_t>(group)];
+  target.spec.sigma = sigma;
+  target.spec.sigma_known = true;
+}
+
 void LeastSquaresProblem::SetResidualOffsets(int group, const std::vector<double>& offsets) {
   Require(group >= 0 && group < static_cast<int>(groups_.size()), "SetResidualOffsets: unknown group index");
   const Group& target = *groups_[static_cast<std::size_t>(group)];

@@ -80,6 +80,10 @@ struct ParameterSpec {
 struct GroupSpec {
   std::string name;                  // e.g. "locked-rotor step current"
   double sigma = 1.0;                // noise σ_g of this group's residuals, in their unit
+  // σ_g is given (e.g. by the user from the bench's instrument specification): it is
+  // not re-estimated by estimate_group_sigmas, and the covariance counts it as known
+  // (s_g² = 1, no degrees of freedom lost to it) while the other groups' come from data.
+  bool sigma_known = false;
 };
 
 struct SolveOptions {
@@ -219,6 +223,8 @@ class LeastSquaresProblem {
   // Fixes a parameter at `value` (physical, within its bounds) for later solves.
   void HoldAt(int parameter, double value);
   void SetGroupSigma(int group, double sigma);
+  // Gives group's σ_g as known (GroupSpec::sigma_known): kept through estimate_group_sigmas.
+  void GiveGroupSigma(int group, double sigma);
   // Offsets δ added to group g's unweighted residuals before weighting, r + δ
   // (n_g values in the order the residuals were added); empty removes them.
   void SetResidualOffsets(int group, const std::vector<double>& offsets);

@@ -116,6 +116,40 @@ void AddInformationShares(const locked_rotor::LockedRotorPlan& lr, const no_load
   }
 }
 
+// Given noise levels replace the estimated ones of the sample-by-sample channels.
+void ApplyNoiseOverrides(const std::vector<NoiseOverride>& overrides, const locked_rotor::LockedRotorPlan& lr,
+                         const spin_down::SpinDownPlan& sd, const step::StepTestPlan& st,
+                         core::LeastSquaresProblem* problem, MotorEstimate* e) {
+  struct Channel {
+    int group;
+    std::string channel;
+  };
+  std::vector<Channel> channels;
+  for (const auto& sl : lr.step_logs) channels.push_back({sl.group, "current"});
+  for (const auto& c : sd.logs) {
+    channels.push_back({c.motion_group, c.position_rad.empty() ? "speed" : "position"});
+    channels.push_back({c.voltage_group, "voltage"});
+  }
+  for (const auto& s : st.logs) {
+    channels.push_back({s.current_group, "current"});
+    channels.push_back({s.motion_group, s.fit_position ? "position" : "speed"});
+  }
+  for (const auto& o : overrides) {
+    int matched = 0;
+    for (const auto& c : channels)
+      if (c.group >= 0 && c.channel == o.channel) {
+        problem->GiveGroupSigma(c.group, o.sigma);
+        ++matched;
+      }
+    if (matched == 0)
+      e->warnings.push_back("--noise " + o.channel + ": no test fits a " + o.channel +
+                            " channel sample by sample, so the given noise level was not used");
+    else
+      e->intervals.notes.push_back(o.channel + " noise given as " + Format("%g", o.sigma) + " (SI) for " +
+                                   std::to_string(matched) + " channel(s), not estimated from the data");
+  }
+}
+
 // Near-singular directions: pairs of parameters the tests barely tell apart.
 void WarnStrongCorrelations(MotorEstimate* e) {
   const auto& names = e->correlation_names;
@@ -142,6 +176,16 @@ bool MotorFitOptions::IsValid(std::string* error) const {
   if (at_voltage_V && !(*at_voltage_V > 0.0)) {
     *error = "--at-voltage must be positive";
     return false;
+  }
+  for (const auto& o : noise) {
+    if (o.channel != "current" && o.channel != "voltage" && o.channel != "speed" && o.channel != "position") {
+      *error = "--noise: channel must be current, voltage, speed or position, got '" + o.channel + "'";
+      return false;
+    }
+    if (!(std::isfinite(o.sigma) && o.sigma > 0.0)) {
+      *error = "--noise " + o.channel + ": sigma must be a positive number (SI units)";
+      return false;
+    }
   }
   return locked_rotor.IsValid(error);
 }
@@ -230,6 +274,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     AddMissingReasons(&e);
     return e;
   }
+  ApplyNoiseOverrides(options.noise, lr, sd, st, &problem, &e);
   core::SolveOptions solve;
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;

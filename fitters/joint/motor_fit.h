@@ -37,6 +37,15 @@ struct TestLog {
   BenchLog log;
 };
 
+// A noise level given instead of estimated: σ of the logged channel's samples
+// ("current" [A], "voltage" [V], "speed" [rad/s], "position" [rad]), for every
+// test whose channel is fitted sample by sample (step captures and steps,
+// coasts). Plateau means keep their σ from the within-plateau spread.
+struct NoiseOverride {
+  std::string channel;
+  double sigma = 0.0;
+};
+
 struct MotorFitOptions {
   std::string motor_label;
   double confidence = 0.95;
@@ -48,6 +57,7 @@ struct MotorFitOptions {
   double consistency_tolerance = units::kDefaultKtKeTolerance;  // |Kt/Ke − 1| allowed
   IntervalOptions intervals;                                       // wald | profile | bootstrap
   core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
+  std::vector<NoiseOverride> noise;                                // --noise channel=sigma
 
   bool IsValid(std::string* error) const;
 };

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cstdio>
+#include <cstdlib>
 #include <ostream>
 
 #include "fitters/core/bootstrap_progress.h"
@@ -70,6 +71,9 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--seed", a->seed, "Bootstrap seed (fixed by default, so results are reproducible)");
   c->add_option("--robust", a->robust, "Robust loss for logs with spikes: huber or cauchy (reported in the result)")
       ->check(CLI::IsMember({"huber", "cauchy"}));
+  c->add_option("--noise", a->noise_specs,
+                "Noise sigma of a logged channel, in SI units, instead of the one estimated from the data, e.g. "
+                "--noise current=0.004 (applies to channels fitted sample by sample); repeatable");
   c->add_option("--column", a->column_specs,
                 "Header of a column that does not follow 'quantity [unit]', e.g. --column speed=\"Tach (RPM)\"");
   c->add_option("--unit", a->unit_specs, "Unit of a quantity whose header names none, e.g. --unit current=mA");
@@ -127,6 +131,17 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--replicates and --seed apply to --intervals bootstrap only");
   if (!a.quiet) options.intervals.progress = core::StderrBootstrapProgress();
   if (!a.robust.empty()) options.loss = *core::RobustLossFromString(a.robust);
+  std::vector<std::pair<std::string, std::string>> estimate_settings_noise;
+  for (const auto& [quantity, text] : ParseQuantityMap(a.noise_specs, "--noise")) {
+    char* end = nullptr;
+    const double sigma = std::strtod(text.c_str(), &end);
+    if (text.empty() || end != text.c_str() + text.size())
+      throw InputError(InputErrorKind::kBadOption, "", 0, 0,
+                       "--noise " + std::string(units::QuantityName(quantity)) + "=" + text +
+                           ": expected a number in SI units (A, V, rad/s, rad)");
+    options.noise.push_back({std::string(units::QuantityName(quantity)), sigma});
+    estimate_settings_noise.push_back({"noise_" + std::string(units::QuantityName(quantity)), text});
+  }
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
 
@@ -139,6 +154,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   }
 
   MotorEstimate estimate = joint::FitMotor(logs, options);
+  estimate.settings.insert(estimate.settings.end(), estimate_settings_noise.begin(), estimate_settings_noise.end());
   estimate.settings.push_back({"confidence", Text(options.confidence)});
   estimate.settings.push_back({"intervals", a.intervals});
   if (options.intervals.method == joint::IntervalMethod::kBootstrap) {

@@ -27,6 +27,7 @@ struct FitArguments {
   std::optional<int> replicates;          // bootstrap
   std::optional<unsigned long long> seed; // bootstrap
   std::string robust;                     // "" | huber | cauchy
+  std::vector<std::string> noise_specs;   // channel=sigma (SI)
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined

@@ -97,6 +97,41 @@ TEST(GroupSigmas, ReestimationRecoversTheTrueNoiseRatio) {
   EXPECT_NEAR(fit.Get("slope").std_error / true_se, 1.0, kSigmaTolerance);
 }
 
+TEST(GroupSigmas, AGivenSigmaIsKeptAndCountedAsKnown) {
+  // The coarse sensor's σ = 0.5 is given (GiveGroupSigma); the precise one's is
+  // estimated. The given σ must survive the re-estimation rounds, and a parameter
+  // seen only by the given group has the known-σ standard error of weighted least
+  // squares, σ/√Sxx for the slope (Draper & Smith §1.4, §9.2), with no degrees of
+  // freedom lost (normal quantile).
+  constexpr int kSamples = 400;
+  constexpr double kSigmaA = 0.05, kSigmaB = 0.5;
+  LeastSquaresProblem problem;
+  const int a = problem.AddParameter(Start("intercept", 0.5));
+  const int b = problem.AddParameter(Start("slope", 1.0));
+  const int c = problem.AddParameter(Start("other intercept", 0.5));
+  const int d = problem.AddParameter(Start("other slope", 1.0));
+  const int precise = problem.AddGroup({"precise sensor", 1.0});
+  const int coarse = problem.AddGroup({"coarse sensor", 1.0});
+  AddSensor(&problem, precise, a, b, kSamples, kSigmaA, 41);
+  AddSensor(&problem, coarse, c, d, kSamples, kSigmaB, 42);
+  problem.GiveGroupSigma(coarse, kSigmaB);
+  SolveOptions options;
+  options.estimate_group_sigmas = true;
+  const FitResult fit = problem.Solve(options);
+  ASSERT_TRUE(fit.usable) << fit.message;
+  EXPECT_EQ(fit.groups[static_cast<std::size_t>(coarse)].sigma, kSigmaB);
+  EXPECT_NEAR(fit.groups[static_cast<std::size_t>(precise)].sigma / kSigmaA, 1.0, 0.15);
+  double x_mean = 0.0, sxx = 0.0;
+  for (int k = 0; k < kSamples; ++k) x_mean += static_cast<double>(k) / (kSamples - 1) / kSamples;
+  for (int k = 0; k < kSamples; ++k) {
+    const double dx = static_cast<double>(k) / (kSamples - 1) - x_mean;
+    sxx += dx * dx;
+  }
+  EXPECT_NEAR(fit.Get("other slope").std_error, kSigmaB / std::sqrt(sxx), 1e-9 * kSigmaB / std::sqrt(sxx));
+  EXPECT_TRUE(std::isinf(fit.Get("other slope").degrees_of_freedom));
+  EXPECT_NEAR(fit.Get("slope").degrees_of_freedom, kSamples - 2.0, 1e-6);
+}
+
 TEST(GroupSigmas, SatterthwaiteDegreesOfFreedomLieBetweenTheGroups) {
   // A few precise samples and many coarse ones with about equal information about the
   // line: Satterthwaite's ν lies between the smallest group's d_g and Σ_g d_g

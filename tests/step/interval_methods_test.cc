@@ -48,7 +48,7 @@ TEST(StepIntervals, ProfileMatchesWaldWhereTheModelIsNearlyLinear) {
   }
 }
 
-TEST(StepIntervals, BootstrapStandardErrorsAgreeWithWaldAndRepeatExactly) {
+TEST(StepIntervals, BootstrapStandardErrorsAgreeWithWaldAndRepeat) {
   const BenchLog log = QuietVoltageStep(32);
   const MotorEstimate wald = Fit(log, {});
   joint::MotorFitOptions options;
@@ -62,8 +62,13 @@ TEST(StepIntervals, BootstrapStandardErrorsAgreeWithWaldAndRepeatExactly) {
     const double ratio = a.Find(key)->std_error / wald.Find(key)->std_error;
     EXPECT_GT(ratio, 0.65) << key;
     EXPECT_LT(ratio, 1.35) << key;
-    EXPECT_EQ(a.Find(key)->ci_low, b.Find(key)->ci_low) << key;  // fixed seed: reproducible
-    EXPECT_EQ(a.Find(key)->ci_high, b.Find(key)->ci_high) << key;
+    // Fixed seed: the same replicates. Two fits in one process agree to the solver's
+    // convergence only (measured: 1e-11 relative on R, 2.5e-6 of the half-width on J;
+    // the order of Ceres' internal blocks follows memory addresses), so equality is
+    // asked to 1e-4 of the half-width. Separate runs of the CLI give identical files.
+    const double half_width = 0.5 * (a.Find(key)->ci_high - a.Find(key)->ci_low);
+    EXPECT_NEAR(a.Find(key)->ci_low, b.Find(key)->ci_low, 1e-4 * half_width) << key;
+    EXPECT_NEAR(a.Find(key)->ci_high, b.Find(key)->ci_high, 1e-4 * half_width) << key;
   }
 }
 
@@ -99,6 +104,29 @@ TEST(StepIntervals, RobustLossResistsSpikesInTheCurrent) {
     EXPECT_LT(std::fabs(q->value - truth), 4.0 * q->std_error) << key;
     EXPECT_LT(q->std_error, squared.Find(key)->std_error) << key;  // the spikes no longer widen it
   }
+}
+
+TEST(StepIntervals, AGivenNoiseLevelIsUsedInsteadOfTheEstimate) {
+  // Given the simulator's true current σ, the fit weights the channel by it and keeps
+  // it; since the estimate from the data is close to the truth (the residuals are the
+  // simulated noise), the standard errors barely move (within 10 %).
+  const BenchLog log = QuietVoltageStep(34);
+  const double sigma_A = StepNoise(0, false).current_noise_sigma_A;
+  joint::MotorFitOptions options;
+  options.noise.push_back({"current", sigma_A});
+  const MotorEstimate given = Fit(log, options);
+  const MotorEstimate estimated = Fit(log, {});
+  bool found = false;
+  for (const auto& r : given.tests.front().residuals)
+    if (r.channel == "current") {
+      EXPECT_EQ(r.sigma, sigma_A);
+      found = true;
+    }
+  EXPECT_TRUE(found);
+  EXPECT_NEAR(given.Find("resistance")->std_error / estimated.Find("resistance")->std_error, 1.0, 0.1);
+  std::string why;
+  options.noise = {{"torque", 1.0}};
+  EXPECT_FALSE(options.IsValid(&why));
 }
 
 }  // namespace
