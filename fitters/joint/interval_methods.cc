@@ -21,8 +21,14 @@ std::optional<IntervalMethod> IntervalMethodFromString(const std::string& text) 
   return std::nullopt;
 }
 
+void StretchAbout(double value, double k, double* low, double* high) {
+  *low = value - k * (value - *low);
+  *high = value + k * (*high - value);
+}
+
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
-                           core::FitResult* fit, std::vector<std::string>* notes) {
+                           const Eigen::MatrixXd& input_covariance, core::FitResult* fit,
+                           std::vector<std::string>* notes) {
   core::ProfileOptions options;
   options.confidence = fit->confidence;
   for (const auto& name : names) {
@@ -34,16 +40,21 @@ void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::
       notes->push_back(name + ": no profile (" + profile.message + "); Wald interval kept");
       continue;
     }
-    if (profile.low.found) p.ci_low = profile.low.bound;
+    // The Wald sides kept already include the input term; the profile's own sides do not.
+    const double input = input_covariance(index, index);
+    const double output = p.std_error * p.std_error - input;  // output-only Wald variance
+    const double k = output > 0.0 ? std::sqrt(1.0 + input / output) : 1.0;
+    if (profile.low.found) p.ci_low = p.value - k * (p.value - profile.low.bound);
     else notes->push_back(name + ": profile lower side not found (" + profile.low.reason + "); Wald side kept");
-    if (profile.high.found) p.ci_high = profile.high.bound;
+    if (profile.high.found) p.ci_high = p.value + k * (profile.high.bound - p.value);
     else notes->push_back(name + ": profile upper side not found (" + profile.high.reason + "); Wald side kept");
   }
 }
 
 std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
-                                                             const IntervalOptions& options, core::FitResult* fit,
-                                                             std::vector<std::string>* notes) {
+                                                             const IntervalOptions& options,
+                                                             const Eigen::MatrixXd& input_covariance,
+                                                             core::FitResult* fit, std::vector<std::string>* notes) {
   core::BootstrapOptions b;
   b.replicates = options.replicates;
   b.seed = options.seed;
@@ -65,6 +76,7 @@ std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSq
     const Eigen::VectorXd d = Eigen::Map<const Eigen::VectorXd>(r.data(), p) - mean;
     covariance += d * d.transpose() / (n - 1.0);
   }
+  covariance += input_covariance;
   fit->covariance = covariance;
   for (Eigen::Index a = 0; a < p; ++a)
     for (Eigen::Index c = 0; c < p; ++c) {
@@ -74,9 +86,15 @@ std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSq
   for (std::size_t j = 0; j < fit->parameters.size(); ++j) {
     if (fit->parameters[j].fixed) continue;
     const core::ParameterEstimate& q = result.parameters[j];
-    fit->parameters[j].std_error = q.std_error;
-    fit->parameters[j].ci_low = q.ci_low;
-    fit->parameters[j].ci_high = q.ci_high;
+    const auto at = static_cast<Eigen::Index>(j);
+    const double replicate_variance = q.std_error * q.std_error;
+    const double k =
+        replicate_variance > 0.0 ? std::sqrt(1.0 + input_covariance(at, at) / replicate_variance) : 1.0;
+    double low = q.ci_low, high = q.ci_high;
+    StretchAbout(q.value, k, &low, &high);
+    fit->parameters[j].std_error = std::sqrt(covariance(at, at));
+    fit->parameters[j].ci_low = low;
+    fit->parameters[j].ci_high = high;
     fit->parameters[j].degrees_of_freedom = q.degrees_of_freedom;
   }
   return result;

@@ -8,6 +8,14 @@
 //   bootstrap  moving-block bootstrap over each test's residuals, percentile
 //              intervals; derived quantities from the same replicates.
 // Both alternatives start from the solved joint problem and never change it.
+//
+// Noise on a logged input (the voltage that drives a step model) is not in the
+// residuals that profile and bootstrap work on; its first-order covariance
+// (the input-noise terms of the Wald fit) is added to them as an independent
+// variance: each side of the interval is stretched by k = √(1 + v_in/v), v the
+// method's own variance of the parameter (the output-only Wald variance for the
+// profile, the replicates' variance for the bootstrap), and the bootstrap's
+// covariance gains the input term.
 
 #include <cstdint>
 #include <functional>
@@ -33,13 +41,19 @@ struct IntervalOptions {
 };
 
 // Profile intervals for `names` replace the Wald ones in *fit; notes say where a side was not found.
+// input_covariance: the input-noise part of fit->covariance (same layout; zero when none).
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
-                           core::FitResult* fit, std::vector<std::string>* notes);
+                           const Eigen::MatrixXd& input_covariance, core::FitResult* fit,
+                           std::vector<std::string>* notes);
 
 // Bootstrap intervals replace the Wald ones (and the replicates' covariance the
 // fit's) in *fit. Empty, with a note, when the bootstrap is not usable.
 std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
-                                                             const IntervalOptions& options, core::FitResult* fit,
-                                                             std::vector<std::string>* notes);
+                                                             const IntervalOptions& options,
+                                                             const Eigen::MatrixXd& input_covariance,
+                                                             core::FitResult* fit, std::vector<std::string>* notes);
+
+// Stretches both sides of [low, high] about `value` by k.
+void StretchAbout(double value, double k, double* low, double* high);
 
 }  // namespace coilspin::joint

@@ -281,18 +281,21 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   solve.group_sigma_rounds = kGroupSigmaRounds;
   solve.loss = options.loss;
   core::FitResult fit = problem.Solve(solve);
+  const Eigen::MatrixXd output_covariance = fit.covariance;
   locked_rotor::AddVoltageNoiseCovariance(lr, parameters, &fit);
   step::AddStepVoltageNoiseCovariance(st, kt_name, parameters, &fit);
+  const Eigen::MatrixXd input_covariance =
+      fit.usable ? Eigen::MatrixXd(fit.covariance - output_covariance) : Eigen::MatrixXd();
   e.intervals.method = IntervalMethodName(options.intervals.method);
   e.intervals.robust_loss = options.loss == core::RobustLoss::kSquared ? "none" : core::RobustLossToString(options.loss);
   std::optional<core::BootstrapResult> bootstrap;
   if (fit.usable && options.intervals.method == IntervalMethod::kProfile) {
     std::vector<std::string> names;
     for (const auto& info : kPhysical) names.push_back(info.key);
-    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes);
+    ApplyProfileIntervals(problem, names, input_covariance, &fit, &e.intervals.notes);
   }
   if (fit.usable && options.intervals.method == IntervalMethod::kBootstrap) {
-    bootstrap = ApplyBootstrapIntervals(problem, options.intervals, &fit, &e.intervals.notes);
+    bootstrap = ApplyBootstrapIntervals(problem, options.intervals, input_covariance, &fit, &e.intervals.notes);
     e.intervals.seed = options.intervals.seed;
     if (bootstrap) {
       e.intervals.replicates = static_cast<int>(bootstrap->replicates.size());

@@ -124,19 +124,26 @@ ShaftState<T> AdvanceStep(double interval_s, double voltage_V, double slope_V_pe
                                         m.brush_drop_V, rest);
   const ShaftState<T> held{end_A, T(0.0), x.angle_rad};
   if (!(abs(m.torque_constant * end_A) > m.coulomb)) return held;  // stiction holds the rotor
-  // A current that changed sign on the way (brush restart) breaks away at the next sample.
-  if (x.current_A != 0.0 && SignOf(end_A) != SignOf(x.current_A)) return held;
-  // Breakaway inside the interval, where i(t*) = ±Tc/Kt between i_k and i_end.
-  const T drive_V = locked_rotor::HeldRotorDrive(voltage_V, x.current_A, m.brush_drop_V, rest);
-  const T settled_A = drive_V / m.resistance_ohm;  // i∞
+  // Breakaway inside the interval, where i(t*) = ±Tc/Kt on the way from i_k to i_end:
+  //   i(t) = i∞ + (i_k − i∞)·e^(−t/τ_e),  t* = τ_e·ln((i_k − i∞)/(i* − i∞)).
+  // A current that changed sign on the way did so at t₀ = τ_e·ln(1 − R·i_k/u) and
+  // restarted from 0 under the from-rest drive (the locked-rotor rule); t* counts from there.
+  const T tau_s = m.inductance_H / m.resistance_ohm;
   const T direction = SignOf(end_A);
   const T breakaway_A = direction * m.coulomb / m.torque_constant;
-  const T ratio = (x.current_A - settled_A) / (breakaway_A - settled_A);
+  T start_A = x.current_A, start_s = T(0.0);
+  T drive_V = locked_rotor::HeldRotorDrive(voltage_V, x.current_A, m.brush_drop_V, rest);
+  if (x.current_A != 0.0 && SignOf(end_A) != SignOf(x.current_A) &&
+      !locked_rotor::AtRest(voltage_V, x.current_A, rest)) {  // inside the rest bands the drive is v throughout
+    start_s = tau_s * log(1.0 - m.resistance_ohm * x.current_A / drive_V);
+    start_A = T(0.0);
+    drive_V = locked_rotor::DriveVoltage(voltage_V, m.brush_drop_V);
+  }
+  const T settled_A = drive_V / m.resistance_ohm;  // i∞
+  const T ratio = (start_A - settled_A) / (breakaway_A - settled_A);
   if (!(ratio > 1.0)) return held;  // rounding at the boundary: the next sample decides
-  const T breakaway_s = m.inductance_H / m.resistance_ohm * log(ratio);  // t* = τ_e·ln((i_k − i∞)/(i* − i∞))
+  const T breakaway_s = start_s + tau_s * log(ratio);
   if (!(breakaway_s < interval)) return held;
-  // The voltage at t* on its ramp is v + slope·t*: a Jet, so the ramp restarts from the held v (the
-  // difference, slope·t*, is below one sample's change of v).
   return Turning(interval - breakaway_s, voltage_V, slope_V_per_s, ShaftState<T>{breakaway_A, T(0.0), x.angle_rad}, m,
                  direction);
 }

@@ -25,11 +25,11 @@ constexpr std::size_t kLeadingSamples = 10;
 constexpr double kMinResistance_ohm = 1e-9;
 constexpr double kMinInductance_H = 1e-12;
 constexpr double kMinInertia_kg_m2 = 1e-15;
-// L's interval holds its stated coverage when the electrical time constant spans at
-// least this many samples: measured on 40 simulated steps, L covered 30 of 40 at 10
-// samples per L/R and at least 32 of 40 at 20 (tests/step/step_coverage_test.cc); the
-// switching instants resolved to the sample (step_dynamics.h) are the cause.
-constexpr double kMinSamplesPerTimeConstant = 20.0;
+// L is resolved when the electrical time constant spans at least this many samples
+// (the rule of the locked-rotor step capture, fitters/locked_rotor/capture.h); measured
+// on 40 simulated steps at 10 samples per L/R, L's 95 % interval held the truth 37 times
+// (tests/step/step_coverage_test.cc runs the check at 10).
+constexpr double kMinSamplesPerTimeConstant = 10.0;
 // A change of the logged voltage between two samples above this fraction of its range is a
 // switched edge (held until the sample that shows it), not a sampled continuous change: a
 // supply sags by a few per cent of the step over a sample interval at most (common practice).
@@ -228,7 +228,7 @@ void ReportStep(const StepTestPlan& plan, const core::FitResult& fit, MotorEstim
     if (tau_s < kMinSamplesPerTimeConstant * interval_s) {
       const std::string text = s.log->path + ": the electrical time constant L/R = " + Format("%.3g", tau_s) +
                                " s spans only " + Format("%.1f", tau_s / interval_s) +
-                               " samples; L's interval is then too narrow (log at least " +
+                               " samples; L and the current's rise are poorly resolved (log at least " +
                                Format("%g", kMinSamplesPerTimeConstant) + " samples per L/R)";
       summary.warnings.push_back(text);
       estimate->warnings.push_back(text);

@@ -72,6 +72,26 @@ TEST(StepIntervals, BootstrapStandardErrorsAgreeWithWaldAndRepeat) {
   }
 }
 
+TEST(StepIntervals, ProfileCountsTheLoggedVoltagesNoiseAsWaldDoes) {
+  // With noise on the logged voltage, the Wald interval includes its first-order
+  // term (fitters/step/input_noise.h); the profile works on the output residuals
+  // and adds the same term as an independent variance (interval_methods.h), so on
+  // this nearly linear fit the two intervals again agree (10 % of the half-width).
+  const model::MotorParameters m = ServoMotor();
+  const BenchLog log = ToBenchLog(model::SimulateStep(m, StepFromRest(m, 24.0, false), StepNoise(35, false)), "s");
+  const MotorEstimate wald = Fit(log, {});
+  joint::MotorFitOptions options;
+  options.intervals.method = joint::IntervalMethod::kProfile;
+  const MotorEstimate profile = Fit(log, options);
+  for (const char* key : {"inductance", "inertia"}) {
+    const QuantityEstimate* w = wald.Find(key);
+    const QuantityEstimate* p = profile.Find(key);
+    const double half_width = 0.5 * (w->ci_high - w->ci_low);
+    EXPECT_NEAR(p->ci_low, w->ci_low, 0.1 * half_width) << key;
+    EXPECT_NEAR(p->ci_high, w->ci_high, 0.1 * half_width) << key;
+  }
+}
+
 TEST(StepIntervals, RobustLossResistsSpikesInTheCurrent) {
   const model::MotorParameters m = ServoMotor();
   BenchLog log = QuietVoltageStep(33);
