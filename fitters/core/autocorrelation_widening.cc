@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include "fitters/core/residual_statistics.h"
+
 namespace coilspin::core {
 
 AutocorrelationWidening DecideWidening(int num_residuals, double lag1) {
@@ -16,6 +18,29 @@ AutocorrelationWidening DecideWidening(int num_residuals, double lag1) {
   out.widened = true;
   out.inflation = (1.0 + lag1) / (1.0 - lag1);
   out.effective_num_residuals = num_residuals / out.inflation;
+  return out;
+}
+
+double IntegratedAutocorrelationTime(const Eigen::VectorXd& residuals) {
+  const Eigen::Index n = residuals.size();
+  if (n < 2) return 1.0;
+  const Eigen::VectorXd centred = residuals.array() - residuals.mean();
+  const double variance = centred.squaredNorm();
+  if (!(variance > 0.0)) return 1.0;
+  double tau = 1.0;
+  for (Eigen::Index lag = 1; lag < n / 2; ++lag) {
+    const double rho = centred.head(n - lag).dot(centred.tail(n - lag)) / variance;  // ρ̂_k
+    tau += 2.0 * rho;
+    if (static_cast<double>(lag) >= kSokalWindow * tau) break;
+  }
+  return std::max(tau, 1.0);
+}
+
+AutocorrelationWidening DecideWidening(const Eigen::VectorXd& residuals) {
+  AutocorrelationWidening out = DecideWidening(static_cast<int>(residuals.size()), Lag1Autocorrelation(residuals));
+  if (!out.widened) return out;
+  out.inflation = std::max(out.inflation, IntegratedAutocorrelationTime(residuals));
+  out.effective_num_residuals = residuals.size() / out.inflation;
   return out;
 }
 
