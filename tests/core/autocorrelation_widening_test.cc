@@ -6,6 +6,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <random>
 
 #include "core/ar1_line.h"
 #include "fitters/core/autocorrelation_widening.h"
@@ -21,6 +22,43 @@ using test_support::MakeAr1Line;
 using test_support::kInnovationSigma;
 constexpr double kIntercept = test_support::kLineIntercept;
 constexpr double kSlope = test_support::kLineSlope;
+
+// White noise w plus a weak, slowly decaying AR(1) part s (variance share a,
+// coefficient φ): ρ_k = a·φ^k, so τ_int = 1 + 2·a·φ/(1 − φ) (sum of a geometric
+// series), while the lag-1 AR(1) factor (1 + aφ)/(1 − aφ) sees almost nothing.
+Eigen::VectorXd WhitePlusSlowDrift(int n, double share, double phi, unsigned seed) {
+  std::mt19937 generator(seed);
+  std::normal_distribution<double> normal(0.0, 1.0);
+  const double drift_innovation = std::sqrt(share * (1.0 - phi * phi));  // Var(s) = share
+  const double white = std::sqrt(1.0 - share);
+  Eigen::VectorXd x(n);
+  double s = std::sqrt(share) * normal(generator);
+  for (int k = 0; k < n; ++k) {
+    s = phi * s + drift_innovation * normal(generator);
+    x(k) = white * normal(generator) + s;
+  }
+  return x;
+}
+
+TEST(AutocorrelationWidening, IntegratedTimeCatchesNoiseThatDecaysSlowerThanAr1) {
+  constexpr int kSamples = 200000;
+  constexpr double kShare = 0.1, kPhi = 0.95;
+  const double tau = 1.0 + 2.0 * kShare * kPhi / (1.0 - kPhi);  // 4.8
+  const Eigen::VectorXd x = WhitePlusSlowDrift(kSamples, kShare, kPhi, 17);
+  // Sokal's estimate: relative error about √(2(2M+1)/n)·τ (from memory) ≈ 5 % here; 15 % bound.
+  EXPECT_NEAR(IntegratedAutocorrelationTime(x) / tau, 1.0, 0.15);
+  const AutocorrelationWidening w = DecideWidening(x);
+  ASSERT_TRUE(w.widened);  // ρ̂₁ ≈ aφ = 0.095 is above the 0.05 floor
+  EXPECT_NEAR(w.inflation / tau, 1.0, 0.15);
+  const double ar1 = (1.0 + kShare * kPhi) / (1.0 - kShare * kPhi);
+  EXPECT_GT(w.inflation, 3.0 * ar1);
+  // White noise: τ_int ≈ 1 (the sum over the window is noise of order √(M/n)).
+  std::mt19937 generator(18);
+  std::normal_distribution<double> normal(0.0, 1.0);
+  Eigen::VectorXd white(kSamples);
+  for (int k = 0; k < kSamples; ++k) white(k) = normal(generator);
+  EXPECT_NEAR(IntegratedAutocorrelationTime(white), 1.0, 0.05);
+}
 
 TEST(AutocorrelationWidening, DecisionFollowsTheThresholds) {
   // From the definitions in autocorrelation_widening.h: f = (1+ρ)/(1−ρ), n_eff = n/f.
