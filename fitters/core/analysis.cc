@@ -121,7 +121,9 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     if (options.widen_for_autocorrelation) {
       // ρ̂₁ does not depend on the weight 1/σ_g, so the weighted residuals serve.
       const AutocorrelationWidening widening =
-          DecideWidening(analysis.groups[g].weighted_residuals);
+          groups_[g]->spec.quantised
+              ? DecideWidening(analysis.groups[g].weighted_residuals)
+              : DecideWidening(term.num_residuals, Lag1Autocorrelation(analysis.groups[g].weighted_residuals));
       term.variance_inflation = widening.inflation;
       analysis.widening.push_back(widening);
     }

@@ -26,12 +26,16 @@
 // Beyond AR(1). Noise whose autocorrelation decays more slowly than ρ^k (the
 // quantisation error of an encoder read at a near-constant speed is a slow
 // sawtooth; measured on a step fit: ρ̂ = 0.13, 0.12, 0.07, 0.03 at lags 1, 2, 5,
-// 10, where AR(1) would give 0.13, 0.02, 0.00) is under-widened by f. So once
-// a group is widened, f is the larger of the AR(1) factor and the integrated
-// autocorrelation time
+// 10, where AR(1) would give 0.13, 0.02, 0.00) is under-widened by f. So for a
+// group of quantised readings (GroupSpec::quantised), once widened, f is the
+// larger of the AR(1) factor and the integrated autocorrelation time
 //     τ_int = 1 + 2·Σ_{k=1}^{M} ρ̂_k,   M the first lag with M ≥ kSokalWindow·τ_int(M)
 // (Sokal's automatic window, Monte Carlo Methods in Statistical Mechanics,
 // 1989 — from memory), which for AR(1) noise tends to the same (1 + ρ)/(1 − ρ).
+// Not for every group: in a joint fit the residuals of a step capture carry the
+// logged voltage's noise through the winding's lag, a slow error already counted
+// by the input-noise terms; τ_int on every group counted it twice (measured: L's
+// interval 30 times its spread).
 //
 // When it breaks. The decision to widen still rests on ρ̂₁, so noise that is
 // correlated only beyond lag 1 is not widened; a drift that

@@ -84,6 +84,12 @@ struct GroupSpec {
   // not re-estimated by estimate_group_sigmas, and the covariance counts it as known
   // (s_g² = 1, no degrees of freedom lost to it) while the other groups' come from data.
   bool sigma_known = false;
+  // The residuals are those of a quantised reading (encoder counts): their error is
+  // a slow sawtooth when the reading moves by a near-constant step per sample, so a
+  // widened group uses the integrated autocorrelation time, not only lag 1
+  // (autocorrelation_widening.h). Off elsewhere: where a group's slow error is
+  // the logged input's noise, the input-noise terms count it already.
+  bool quantised = false;
 };
 
 struct SolveOptions {

@@ -146,7 +146,9 @@ void AddSpinDown(SpinDownPlan* plan, Mechanics mechanics, double inertia_start_k
                                              std::max(std::fabs(c.position_start_rad), 1.0), {}, {}, false});
       motion.insert(motion.begin(), theta0);
       const double sigma = c.position_sigma_rad > 0.0 ? c.position_sigma_rad : NoiseFromDifferences(c.position_rad);
-      c.motion_group = problem.AddGroup({c.log->path + " coast position", sigma > 0.0 ? sigma : 1.0});
+      core::GroupSpec position_spec{c.log->path + " coast position", sigma > 0.0 ? sigma : 1.0};
+      position_spec.quantised = true;  // encoder counts
+      c.motion_group = problem.AddGroup(position_spec);
       problem.AddResiduals(c.motion_group, motion, n, CoastPositionResidual{c.time_s, c.position_rad, mechanics});
     } else {
       const double sigma = NoiseFromDifferences(c.speed_rad_s);

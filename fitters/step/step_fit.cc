@@ -206,8 +206,10 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
       const double theta0 = log.position_rad.front();
       motion.push_back(parameters->Ensure({"step_initial_angle_" + tag, theta0, std::max(std::fabs(theta0), 1.0), {}, {}, false}));
     }
-    s.motion_group = problem.AddGroup({log.path + (s.fit_position ? " step position" : " step speed"),
-                                       s.motion_noise > 0.0 ? s.motion_noise : 1.0});
+    core::GroupSpec motion_spec{log.path + (s.fit_position ? " step position" : " step speed"),
+                                s.motion_noise > 0.0 ? s.motion_noise : 1.0};
+    motion_spec.quantised = s.fit_position;
+    s.motion_group = problem.AddGroup(motion_spec);
     problem.AddResiduals(s.motion_group, motion, n, s.Residual(channel, tied));
   }
 }
