@@ -4,8 +4,18 @@
 
 namespace coilspin::core {
 
+void SetCovariance(const Eigen::MatrixXd& covariance, FitResult* fit) {
+  fit->covariance = covariance;
+  const Eigen::Index p = covariance.rows();
+  for (Eigen::Index a = 0; a < p; ++a)
+    for (Eigen::Index b = 0; b < p; ++b) {
+      const double scale = std::sqrt(covariance(a, a) * covariance(b, b));
+      fit->correlation(a, b) = scale > 0.0 ? covariance(a, b) / scale : 0.0;
+    }
+}
+
 void AddCovariance(const Eigen::MatrixXd& extra, FitResult* fit) {
-  fit->covariance += extra;
+  SetCovariance(fit->covariance + extra, fit);
   const Eigen::Index p = fit->covariance.rows();
   for (Eigen::Index j = 0; j < p; ++j) {
     ParameterEstimate& e = fit->parameters[static_cast<std::size_t>(j)];
@@ -15,11 +25,6 @@ void AddCovariance(const Eigen::MatrixXd& extra, FitResult* fit) {
     e.ci_low = e.value - quantile * e.std_error;
     e.ci_high = e.value + quantile * e.std_error;
   }
-  for (Eigen::Index a = 0; a < p; ++a)
-    for (Eigen::Index b = 0; b < p; ++b) {
-      const double scale = std::sqrt(fit->covariance(a, a) * fit->covariance(b, b));
-      fit->correlation(a, b) = scale > 0.0 ? fit->covariance(a, b) / scale : 0.0;
-    }
 }
 
 }  // namespace coilspin::core

@@ -14,4 +14,8 @@ namespace coilspin::core {
 // `extra` is in physical units, laid out as fit->covariance.
 void AddCovariance(const Eigen::MatrixXd& extra, FitResult* fit);
 
+// Replaces fit->covariance and recomputes fit->correlation from it (the
+// estimates' standard errors and intervals are the caller's to set).
+void SetCovariance(const Eigen::MatrixXd& covariance, FitResult* fit);
+
 }  // namespace coilspin::core

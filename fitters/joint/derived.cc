@@ -5,7 +5,6 @@
 #include <functional>
 #include <limits>
 
-#include "fitters/core/bootstrap.h"
 #include "fitters/core/least_squares.h"
 
 namespace coilspin::joint {
@@ -95,25 +94,20 @@ std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& 
 }
 
 std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula& formula, const MotorEstimate& e,
-                                                     double voltage_V,
-                                                     const std::vector<std::vector<double>>& theta_replicates) {
+                                                     double voltage_V, const Replicates& replicates) {
   std::optional<QuantityEstimate> q = DeriveWithInterval(formula, e, voltage_V);  // value, tests, notes
-  if (!q || theta_replicates.empty()) return q;
-  std::vector<double> samples;
-  double sum = 0.0, sum_sq = 0.0;
-  for (const auto& theta : theta_replicates) {
-    const double g = formula.value(ValuesFrom(e, theta));
-    samples.push_back(g);
-    sum += g;
-    sum_sq += g * g;
-  }
-  const double n = static_cast<double>(samples.size());
-  const double mean = sum / n;
-  q->std_error = n > 1.0 ? std::sqrt(std::max(0.0, (sum_sq - n * mean * mean) / (n - 1.0))) : 0.0;
-  const core::PercentileBounds bounds = core::Percentiles(samples, e.confidence);
-  q->ci_low = bounds.low;
-  q->ci_high = bounds.high;
-  q->degrees_of_freedom = std::numeric_limits<double>::quiet_NaN();  // not a t interval
+  if (!q || !replicates.result) return q;
+  const auto quantity = [&](const std::vector<double>& values) {
+    std::vector<double> theta;
+    for (int index : replicates.theta_index) theta.push_back(values[static_cast<std::size_t>(index)]);
+    return formula.value(ValuesFrom(e, theta));
+  };
+  const core::ParameterEstimate b =
+      core::BootstrapQuantity(*replicates.result, formula.key, replicates.full_fit_values, quantity, e.confidence);
+  q->std_error = b.std_error;
+  q->ci_low = b.ci_low;
+  q->ci_high = b.ci_high;
+  q->degrees_of_freedom = b.degrees_of_freedom;  // NaN: not a t interval
   return q;
 }
 

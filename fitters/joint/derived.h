@@ -9,6 +9,7 @@
 #include <optional>
 #include <vector>
 
+#include "fitters/core/bootstrap.h"
 #include "fitters/core/motor_estimate.h"
 #include "src/model/derived_quantities.h"
 
@@ -21,12 +22,20 @@ model::ParameterValues ValuesOf(const MotorEstimate& estimate);
 std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& formula,
                                                    const MotorEstimate& estimate, double voltage_V);
 
-// The same quantity from bootstrap replicates: value at the estimate, std_error the
-// replicates' standard deviation, percentile interval at the estimate's confidence.
-// theta_replicates: one vector per replicate, in the order of correlation_names.
+// Bootstrap replicates of the joint problem, and where each parameter of the
+// estimate's covariance (correlation_names, in order) sits in a replicate.
+struct Replicates {
+  const core::BootstrapResult* result = nullptr;
+  std::vector<double> full_fit_values;  // the fit's values of every problem parameter
+  std::vector<int> theta_index;         // problem index of correlation_names[k]
+};
+
+// The same quantity from bootstrap replicates (core::BootstrapQuantity): value at
+// the estimate, std_error the replicates' standard deviation, percentile interval
+// at the estimate's confidence.
 std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula& formula,
                                                      const MotorEstimate& estimate, double voltage_V,
-                                                     const std::vector<std::vector<double>>& theta_replicates);
+                                                     const Replicates& replicates);
 
 // The torque–speed line at V from stall to no-load speed, `points` points.
 std::optional<TorqueSpeedLine> TorqueSpeed(const MotorEstimate& estimate, double voltage_V, int points);

@@ -2,9 +2,18 @@
 
 #include <cmath>
 
+#include "fitters/core/added_covariance.h"
 #include "fitters/core/profile.h"
 
 namespace coilspin::joint {
+namespace {
+
+// k = √(1 + v_in/v): the stretch of an interval whose own variance v leaves out the input term v_in.
+double InputStretch(double input_variance, double own_variance) {
+  return own_variance > 0.0 ? std::sqrt(1.0 + input_variance / own_variance) : 1.0;
+}
+
+}  // namespace
 
 const char* IntervalMethodName(IntervalMethod method) {
   switch (method) {
@@ -19,11 +28,6 @@ std::optional<IntervalMethod> IntervalMethodFromString(const std::string& text) 
   for (IntervalMethod m : {IntervalMethod::kWald, IntervalMethod::kProfile, IntervalMethod::kBootstrap})
     if (text == IntervalMethodName(m)) return m;
   return std::nullopt;
-}
-
-void StretchAbout(double value, double k, double* low, double* high) {
-  *low = value - k * (value - *low);
-  *high = value + k * (*high - value);
 }
 
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
@@ -42,8 +46,7 @@ void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::
     }
     // The Wald sides kept already include the input term; the profile's own sides do not.
     const double input = input_covariance(index, index);
-    const double output = p.std_error * p.std_error - input;  // output-only Wald variance
-    const double k = output > 0.0 ? std::sqrt(1.0 + input / output) : 1.0;
+    const double k = InputStretch(input, p.std_error * p.std_error - input);  // vs the output-only Wald variance
     if (profile.low.found) p.ci_low = p.value - k * (p.value - profile.low.bound);
     else notes->push_back(name + ": profile lower side not found (" + profile.low.reason + "); Wald side kept");
     if (profile.high.found) p.ci_high = p.value + k * (profile.high.bound - p.value);
@@ -77,24 +80,15 @@ std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSq
     covariance += d * d.transpose() / (n - 1.0);
   }
   covariance += input_covariance;
-  fit->covariance = covariance;
-  for (Eigen::Index a = 0; a < p; ++a)
-    for (Eigen::Index c = 0; c < p; ++c) {
-      const double scale = std::sqrt(covariance(a, a) * covariance(c, c));
-      fit->correlation(a, c) = scale > 0.0 ? covariance(a, c) / scale : 0.0;
-    }
+  core::SetCovariance(covariance, fit);
   for (std::size_t j = 0; j < fit->parameters.size(); ++j) {
     if (fit->parameters[j].fixed) continue;
     const core::ParameterEstimate& q = result.parameters[j];
     const auto at = static_cast<Eigen::Index>(j);
-    const double replicate_variance = q.std_error * q.std_error;
-    const double k =
-        replicate_variance > 0.0 ? std::sqrt(1.0 + input_covariance(at, at) / replicate_variance) : 1.0;
-    double low = q.ci_low, high = q.ci_high;
-    StretchAbout(q.value, k, &low, &high);
+    const double k = InputStretch(input_covariance(at, at), q.std_error * q.std_error);
     fit->parameters[j].std_error = std::sqrt(covariance(at, at));
-    fit->parameters[j].ci_low = low;
-    fit->parameters[j].ci_high = high;
+    fit->parameters[j].ci_low = q.value - k * (q.value - q.ci_low);
+    fit->parameters[j].ci_high = q.value + k * (q.ci_high - q.value);
     fit->parameters[j].degrees_of_freedom = q.degrees_of_freedom;
   }
   return result;

@@ -53,7 +53,4 @@ std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSq
                                                              const Eigen::MatrixXd& input_covariance,
                                                              core::FitResult* fit, std::vector<std::string>* notes);
 
-// Stretches both sides of [low, high] about `value` by k.
-void StretchAbout(double value, double k, double* low, double* high);
-
 }  // namespace coilspin::joint

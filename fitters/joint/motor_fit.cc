@@ -90,62 +90,72 @@ PlateauOptions NoLoadPlateauOptions(PlateauOptions options) {
 // Above this |ρ| two parameters are nearly one direction for the data.
 constexpr double kStrongCorrelation = 0.99;
 
-// Each test's share of each estimated parameter's information.
-void AddInformationShares(const locked_rotor::LockedRotorPlan& lr, const no_load::NoLoadPlan& nl,
-                          const spin_down::SpinDownPlan& sd, const step::StepTestPlan& st,
-                          const core::SharedParameters& parameters,
-                          const core::FitResult& fit, MotorEstimate* e) {
-  std::vector<std::pair<std::size_t, int>> groups;  // (test summary, residual group)
-  for (std::size_t k = 0; k < lr.plateau_logs.size(); ++k)
-    for (int g : {lr.plateau_logs[k].voltage_group, lr.plateau_logs[k].torque_group}) groups.push_back({lr.summary_index[k], g});
+// Every residual group of the joint problem: the test it belongs to, its
+// channel, and whether it holds samples (a step or coast) or plateau means.
+struct ResidualGroup {
+  std::size_t summary;  // index into MotorEstimate::tests
+  int group;            // -1 when the test did not add it
+  const char* channel;
+  const char* unit;  // of the channel's residuals
+  bool sample_by_sample;
+};
+
+std::vector<ResidualGroup> ResidualGroups(const locked_rotor::LockedRotorPlan& lr, const no_load::NoLoadPlan& nl,
+                                          const spin_down::SpinDownPlan& sd, const step::StepTestPlan& st) {
+  std::vector<ResidualGroup> groups;
+  for (std::size_t k = 0; k < lr.plateau_logs.size(); ++k) {
+    groups.push_back({lr.summary_index[k], lr.plateau_logs[k].voltage_group, "voltage", "V", false});
+    groups.push_back({lr.summary_index[k], lr.plateau_logs[k].torque_group, "torque", "N*m", false});
+  }
   for (std::size_t s = 0; s < lr.step_logs.size(); ++s)
-    groups.push_back({lr.summary_index[lr.plateau_logs.size() + s], lr.step_logs[s].group});
-  for (std::size_t k = 0; k < nl.logs.size(); ++k)
-    for (int g : {nl.logs[k].voltage_group, nl.logs[k].current_group}) groups.push_back({nl.summary_index[k], g});
-  for (const auto& c : sd.logs)
-    for (int g : {c.motion_group, c.voltage_group}) groups.push_back({c.summary, g});
-  for (const auto& s : st.logs)
-    for (int g : {s.current_group, s.motion_group}) groups.push_back({s.summary, g});
+    groups.push_back({lr.summary_index[lr.plateau_logs.size() + s], lr.step_logs[s].group, "current", "A", true});
+  for (std::size_t k = 0; k < nl.logs.size(); ++k) {
+    groups.push_back({nl.summary_index[k], nl.logs[k].voltage_group, "voltage", "V", false});
+    groups.push_back({nl.summary_index[k], nl.logs[k].current_group, "current", "A", false});
+  }
+  for (const auto& c : sd.logs) {
+    const bool speed = c.position_rad.empty();
+    groups.push_back({c.summary, c.motion_group, speed ? "speed" : "position", speed ? "rad/s" : "rad", true});
+    groups.push_back({c.summary, c.voltage_group, "voltage", "V", true});
+  }
+  for (const auto& s : st.logs) {
+    groups.push_back({s.summary, s.current_group, "current", "A", true});
+    groups.push_back({s.summary, s.motion_group, s.fit_position ? "position" : "speed", s.fit_position ? "rad" : "rad/s",
+                      true});
+  }
+  return groups;
+}
+
+// Each test's share of each estimated parameter's information.
+void AddInformationShares(const std::vector<ResidualGroup>& groups, const core::SharedParameters& parameters,
+                          const core::FitResult& fit, MotorEstimate* e) {
   for (const auto& key : e->correlation_names) {
     const int index = parameters.Index(key);
     std::vector<double> share(e->tests.size(), 0.0);
-    for (const auto& [summary, g] : groups)
-      if (g >= 0) share[summary] += fit.groups[g].information_share[index];
+    for (const auto& g : groups)
+      if (g.group >= 0) share[g.summary] += fit.groups[g.group].information_share[index];
     for (std::size_t t = 0; t < e->tests.size(); ++t)
       if (share[t] > 0.0) e->tests[t].information_share.push_back({key, share[t]});
   }
 }
 
 // Given noise levels replace the estimated ones of the sample-by-sample channels.
-void ApplyNoiseOverrides(const std::vector<NoiseOverride>& overrides, const locked_rotor::LockedRotorPlan& lr,
-                         const spin_down::SpinDownPlan& sd, const step::StepTestPlan& st,
+void ApplyNoiseOverrides(const std::vector<NoiseOverride>& overrides, const std::vector<ResidualGroup>& groups,
                          core::LeastSquaresProblem* problem, MotorEstimate* e) {
-  struct Channel {
-    int group;
-    std::string channel;
-  };
-  std::vector<Channel> channels;
-  for (const auto& sl : lr.step_logs) channels.push_back({sl.group, "current"});
-  for (const auto& c : sd.logs) {
-    channels.push_back({c.motion_group, c.position_rad.empty() ? "speed" : "position"});
-    channels.push_back({c.voltage_group, "voltage"});
-  }
-  for (const auto& s : st.logs) {
-    channels.push_back({s.current_group, "current"});
-    channels.push_back({s.motion_group, s.fit_position ? "position" : "speed"});
-  }
   for (const auto& o : overrides) {
     int matched = 0;
-    for (const auto& c : channels)
-      if (c.group >= 0 && c.channel == o.channel) {
-        problem->GiveGroupSigma(c.group, o.sigma);
+    std::string unit;
+    for (const auto& g : groups)
+      if (g.group >= 0 && g.sample_by_sample && o.channel == g.channel) {
+        problem->GiveGroupSigma(g.group, o.sigma);
+        unit = g.unit;
         ++matched;
       }
     if (matched == 0)
       e->warnings.push_back("--noise " + o.channel + ": no test fits a " + o.channel +
                             " channel sample by sample, so the given noise level was not used");
     else
-      e->intervals.notes.push_back(o.channel + " noise given as " + Format("%g", o.sigma) + " (SI) for " +
+      e->intervals.notes.push_back(o.channel + " noise given as " + Format("%g", o.sigma) + " " + unit + " for " +
                                    std::to_string(matched) + " channel(s), not estimated from the data");
   }
 }
@@ -274,7 +284,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     AddMissingReasons(&e);
     return e;
   }
-  ApplyNoiseOverrides(options.noise, lr, sd, st, &problem, &e);
+  const std::vector<ResidualGroup> residual_groups = ResidualGroups(lr, nl, sd, st);
+  ApplyNoiseOverrides(options.noise, residual_groups, &problem, &e);
   core::SolveOptions solve;
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;
@@ -283,7 +294,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   core::FitResult fit = problem.Solve(solve);
   const Eigen::MatrixXd output_covariance = fit.covariance;
   locked_rotor::AddVoltageNoiseCovariance(lr, parameters, &fit);
-  step::AddStepVoltageNoiseCovariance(st, kt_name, parameters, &fit);
+  step::AddStepVoltageNoiseCovariance(st, &fit);
   const Eigen::MatrixXd input_covariance =
       fit.usable ? Eigen::MatrixXd(fit.covariance - output_covariance) : Eigen::MatrixXd();
   e.intervals.method = IntervalMethodName(options.intervals.method);
@@ -360,7 +371,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
         q.basis = "measured";
         q.note = "from the step's Kt/J with the inertia given by --known-inertia";
       }
-  AddInformationShares(lr, nl, sd, st, parameters, fit, &e);
+  AddInformationShares(residual_groups, parameters, fit, &e);
   if (st.usable && fit.parameters[parameters.Index("brush_drop")].fixed)
     e.warnings.push_back("the step fit held the brush drop Vb at 0 (no locked-rotor plateaus at 2 or more current "
                          "levels): on a brushed motor R and Ke then absorb Vb, and their intervals do not include "
@@ -368,15 +379,14 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   WarnStrongCorrelations(&e);
 
   // Bootstrap replicates in the covariance order, for derived quantities.
-  std::vector<std::vector<double>> theta_replicates;
-  if (bootstrap)
-    for (const auto& r : bootstrap->replicates) {
-      std::vector<double> theta;
-      for (const auto& name : e.correlation_names) theta.push_back(r[static_cast<std::size_t>(parameters.Index(name))]);
-      theta_replicates.push_back(std::move(theta));
-    }
+  Replicates replicates;
+  if (bootstrap) {
+    replicates.result = &*bootstrap;
+    for (const auto& p : fit.parameters) replicates.full_fit_values.push_back(p.value);
+    for (const auto& name : e.correlation_names) replicates.theta_index.push_back(parameters.Index(name));
+  }
   const auto derive = [&](const model::DerivedFormula& f, double voltage_V) {
-    return bootstrap ? DeriveFromReplicates(f, e, voltage_V, theta_replicates) : DeriveWithInterval(f, e, voltage_V);
+    return DeriveFromReplicates(f, e, voltage_V, replicates);  // the delta method when there are none
   };
 
   // 6. Ratios the coast (or a step) determines on its own.

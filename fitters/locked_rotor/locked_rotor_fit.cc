@@ -54,9 +54,7 @@ int DistinctCurrentLevels(const std::vector<PlateauLog>& logs) {
 
 // Mean winding temperature of a log: logged channel, else the option.
 std::optional<double> LogTemperature(const BenchLog& log, const LockedRotorOptions& options) {
-  if (!log.temperature_degC.empty())
-    return std::accumulate(log.temperature_degC.begin(), log.temperature_degC.end(), 0.0) /
-           static_cast<double>(log.temperature_degC.size());
+  if (auto logged = MeanLoggedTemperature(log)) return logged;
   return options.winding_temperature_degC;
 }
 

@@ -38,10 +38,8 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
   for (std::size_t k = 0; k < logs.size(); ++k) {
     NoLoadLog nl;
     nl.log = logs[k];
-    std::optional<double> theta_degC = temperatures.winding_degC;
-    if (!logs[k]->temperature_degC.empty())
-      theta_degC = std::accumulate(logs[k]->temperature_degC.begin(), logs[k]->temperature_degC.end(), 0.0) /
-                   static_cast<double>(logs[k]->temperature_degC.size());
+    std::optional<double> theta_degC = MeanLoggedTemperature(*logs[k]);
+    if (!theta_degC) theta_degC = temperatures.winding_degC;
     if (temperatures.reference_degC && theta_degC)
       nl.temperature_factor = model::CopperResistanceAt(1.0, *temperatures.reference_degC, *theta_degC);
     const std::vector<double>& speed = *speeds[k].speed_rad_s;

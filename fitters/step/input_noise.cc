@@ -51,36 +51,22 @@ struct Channel {
 
 }  // namespace
 
-void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, const std::string& torque_constant_name,
-                                   const core::SharedParameters& parameters, core::FitResult* fit) {
+void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, core::FitResult* fit) {
   if (!fit->usable) return;
-  const bool tied = torque_constant_name == "back_emf_constant";
   const Eigen::Index p = fit->covariance.rows();
   Eigen::MatrixXd extra = Eigen::MatrixXd::Zero(p, p);
   std::mt19937_64 generator(kProbeSeed);
   std::normal_distribution<double> normal(0.0, 1.0);
-  for (std::size_t s = 0; s < plan.logs.size(); ++s) {
-    const StepLog& log = plan.logs[s];
+  for (const StepLog& log : plan.logs) {
     const double sigma_v = log.voltage_noise_V;
     if (!(sigma_v > 0.0)) continue;
-    const std::string tag = std::to_string(s);
-    std::vector<std::string> names = {"resistance", "inductance", "back_emf_constant"};
-    if (!tied) names.push_back(torque_constant_name);
-    for (const char* key : {"inertia", "viscous_friction", "coulomb_friction", "brush_drop"}) names.push_back(key);
-    names.push_back("step_initial_current_" + tag);
-    names.push_back("step_initial_speed_" + tag);
     std::vector<Channel> channels;
-    channels.push_back({log.Residual(StepChannel::kCurrent, tied), {}, {}, {}, {}, fit->groups[log.current_group].sigma});
-    std::vector<std::string> motion_names = names;
-    if (log.fit_position) motion_names.push_back("step_initial_angle_" + tag);
-    channels.push_back({log.Residual(log.fit_position ? StepChannel::kPosition : StepChannel::kSpeed, tied), {}, {},
-                        {}, {}, fit->groups[log.motion_group].sigma});
-    for (std::size_t c = 0; c < channels.size(); ++c) {
-      Channel& ch = channels[c];
-      for (const auto& name : c == 0 ? names : motion_names) {
-        ch.index.push_back(parameters.Index(name));
-        ch.values.push_back(fit->parameters[static_cast<std::size_t>(ch.index.back())].value);
-      }
+    channels.push_back({log.Residual(StepChannel::kCurrent), log.current_parameters, {}, {}, {},
+                        fit->groups[log.current_group].sigma});
+    channels.push_back({log.Residual(log.MotionChannel()), log.motion_parameters, {}, {}, {},
+                        fit->groups[log.motion_group].sigma});
+    for (Channel& ch : channels) {
+      for (int index : ch.index) ch.values.push_back(fit->parameters[static_cast<std::size_t>(index)].value);
       ch.jacobian = Jacobian(ch.residual, ch.values);
       ch.at_solution = Evaluate(ch.residual, ch.values);
     }

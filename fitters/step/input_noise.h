@@ -21,7 +21,6 @@
 // of it is real supply ripple that the winding sees.
 
 #include "fitters/core/least_squares.h"
-#include "fitters/core/shared_parameters.h"
 #include "fitters/step/step_fit.h"
 
 namespace coilspin::step {
@@ -29,9 +28,8 @@ namespace coilspin::step {
 // Random probes per step log (K).
 inline constexpr int kInputNoiseProbes = 128;
 
-// Adds Cov_v of every step log to fit->covariance and updates the standard
-// errors, intervals and correlation. torque_constant_name as for AddStep.
-void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, const std::string& torque_constant_name,
-                                   const core::SharedParameters& parameters, core::FitResult* fit);
+// Adds Cov_v of every step log (after AddStep and the solve) to fit->covariance
+// and updates the standard errors, intervals and correlation.
+void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, core::FitResult* fit);
 
 }  // namespace coilspin::step

@@ -109,24 +109,38 @@ struct IntervalResult {
   T angle_rad;
 };
 
+// Φ, A⁻¹, Γ = A⁻¹·(Φ − I) and Γ₂ = A⁻¹·(Γ − Δ·I) for one A and Δ. They depend on
+// the parameters and Δ only, so a log sampled at a constant Δ needs them once
+// per evaluation, not once per sample (step_dynamics.h keeps them).
 template <typename T>
-IntervalResult<T> AdvanceLinear(const Matrix2<T>& a, const Vector2<T>& u, const Vector2<T>& ramp, const Vector2<T>& x,
-                                const T& interval_s) {
-  const Matrix2<T> phi = Exponential(a, interval_s);
-  const Matrix2<T> inverse = Inverse(a);
-  // Γ = A⁻¹·(Φ − I)
-  const Matrix2<T> gamma = Product(inverse, Matrix2<T>{phi.a11 - 1.0, phi.a12, phi.a21, phi.a22 - 1.0});
-  // Γ₂ = A⁻¹·(Γ − Δ·I)
-  const Matrix2<T> gamma2 = Product(inverse, Matrix2<T>{gamma.a11 - interval_s, gamma.a12, gamma.a21, gamma.a22 - interval_s});
-  const T half_square = 0.5 * interval_s * interval_s;
-  const Vector2<T> free = Multiply(phi, x);
-  const Vector2<T> forced = Multiply(gamma, u);
-  const Vector2<T> ramped = Multiply(gamma2, ramp);
+struct Discretisation {
+  T interval_s;
+  Matrix2<T> phi, inverse, gamma, gamma2;
+};
+
+template <typename T>
+Discretisation<T> Discretise(const Matrix2<T>& a, const T& interval_s) {
+  Discretisation<T> d;
+  d.interval_s = interval_s;
+  d.phi = Exponential(a, interval_s);
+  d.inverse = Inverse(a);
+  d.gamma = Product(d.inverse, Matrix2<T>{d.phi.a11 - 1.0, d.phi.a12, d.phi.a21, d.phi.a22 - 1.0});
+  d.gamma2 = Product(d.inverse, Matrix2<T>{d.gamma.a11 - interval_s, d.gamma.a12, d.gamma.a21, d.gamma.a22 - interval_s});
+  return d;
+}
+
+template <typename T>
+IntervalResult<T> AdvanceLinear(const Discretisation<T>& d, const Vector2<T>& u, const Vector2<T>& ramp,
+                                const Vector2<T>& x) {
+  const T half_square = 0.5 * d.interval_s * d.interval_s;
+  const Vector2<T> free = Multiply(d.phi, x);
+  const Vector2<T> forced = Multiply(d.gamma, u);
+  const Vector2<T> ramped = Multiply(d.gamma2, ramp);
   // ∫x dt = Γ·x_k + Γ₂·u + A⁻¹·(Γ₂ − (Δ²/2)·I)·r; only the ω row is needed.
   const Vector2<T> gamma2_r_less = {ramped.x1 - half_square * ramp.x1, ramped.x2 - half_square * ramp.x2};
-  const Vector2<T> gamma2_u = Multiply(gamma2, u);
-  const T angle = gamma.a21 * x.x1 + gamma.a22 * x.x2 + gamma2_u.x2 + inverse.a21 * gamma2_r_less.x1 +
-                  inverse.a22 * gamma2_r_less.x2;
+  const Vector2<T> gamma2_u = Multiply(d.gamma2, u);
+  const T angle = d.gamma.a21 * x.x1 + d.gamma.a22 * x.x2 + gamma2_u.x2 + d.inverse.a21 * gamma2_r_less.x1 +
+                  d.inverse.a22 * gamma2_r_less.x2;
   return {{free.x1 + forced.x1 + ramped.x1, free.x2 + forced.x2 + ramped.x2}, angle};
 }
 

@@ -30,8 +30,10 @@
 //   error is confined to one interval, which is why a step log needs many
 //   samples per electrical time constant (it also needs them for L itself).
 //
-// The cost per sample is constant: three exponentials and a few products,
-// whatever the ratio of the time constants to the sample interval.
+// The cost per sample is constant: a few products, whatever the ratio of the
+// time constants to the sample interval. The interval's matrices (three
+// exponentials) are kept in a DiscretisationCache and recomputed only when the
+// sample interval changes, or for the part of an interval after a breakaway.
 
 #include <cmath>
 
@@ -88,22 +90,37 @@ ShaftState<T> Coast(const T& interval_s, const ShaftState<T>& x, const StepMotor
   return {T(0.0), speed, angle};
 }
 
+// The last Discretisation of one evaluation (one parameter set, so one A): reused
+// while consecutive sample intervals are equal.
+template <typename T>
+struct DiscretisationCache {
+  double interval_s = -1.0;  // none yet
+  Discretisation<T> d;
+};
+
+template <typename T>
+Matrix2<T> SystemMatrix(const StepMotor<T>& m) {
+  return {-m.resistance_ohm / m.inductance_H, -m.back_emf / m.inductance_H, m.torque_constant / m.inertia,
+          -m.viscous / m.inertia};
+}
+
 // Both equations, with the current's sign s_i and the rotor's direction s_ω held.
+// `cache` is used when the interval is a whole sample interval (its key), else null.
 template <typename T>
 ShaftState<T> Turning(const T& interval_s, double voltage_V, double slope_V_per_s, const ShaftState<T>& x,
-                      const StepMotor<T>& m, const T& direction) {
+                      const StepMotor<T>& m, const T& direction, DiscretisationCache<T>* cache) {
   using std::abs;
   T current_sign = SignOf(x.current_A);
   if (current_sign == 0.0) {
     const T drive_V = voltage_V - m.back_emf * x.speed_rad_s;  // u = v − Ke·ω
-    if (abs(drive_V) <= m.brush_drop_V) return Coast(interval_s, x, m, direction);
+    if (abs(drive_V) <= m.brush_drop_V) return Coast(interval_s, x, m, direction);  // no matrices needed
     current_sign = SignOf(drive_V);
   }
-  const Matrix2<T> a{-m.resistance_ohm / m.inductance_H, -m.back_emf / m.inductance_H, m.torque_constant / m.inertia,
-                     -m.viscous / m.inertia};
   const Vector2<T> u{(voltage_V - m.brush_drop_V * current_sign) / m.inductance_H, -m.coulomb * direction / m.inertia};
   const Vector2<T> ramp{slope_V_per_s / m.inductance_H, T(0.0)};
-  const IntervalResult<T> r = AdvanceLinear(a, u, ramp, Vector2<T>{x.current_A, x.speed_rad_s}, interval_s);
+  const Vector2<T> start{x.current_A, x.speed_rad_s};
+  const IntervalResult<T> r = cache ? AdvanceLinear(cache->d, u, ramp, start)
+                                    : AdvanceLinear(Discretise(SystemMatrix(m), interval_s), u, ramp, start);
   ShaftState<T> next{r.state.x1, r.state.x2, x.angle_rad + r.angle_rad};
   if (SignOf(next.speed_rad_s) != direction) next.speed_rad_s = T(0.0);  // stopped: no reversal by friction
   if (m.brush_drop_V > 0.0 && SignOf(next.current_A) == -current_sign) next.current_A = T(0.0);  // brushes block
@@ -113,13 +130,18 @@ ShaftState<T> Turning(const T& interval_s, double voltage_V, double slope_V_per_
 // One sample interval from x, the voltage starting at v and moving at slope_V_per_s (0: held).
 template <typename T>
 ShaftState<T> AdvanceStep(double interval_s, double voltage_V, double slope_V_per_s, const ShaftState<T>& x,
-                          const StepMotor<T>& m, const locked_rotor::RestBand& rest) {
+                          const StepMotor<T>& m, const locked_rotor::RestBand& rest, DiscretisationCache<T>* cache) {
   using std::abs;
   using std::log;
   const T interval(interval_s);
-  if (x.speed_rad_s != 0.0) return Turning(interval, voltage_V, slope_V_per_s, x, m, SignOf(x.speed_rad_s));
+  if (cache->interval_s != interval_s) {
+    cache->interval_s = interval_s;
+    cache->d = Discretise(SystemMatrix(m), interval);
+  }
+  if (x.speed_rad_s != 0.0) return Turning(interval, voltage_V, slope_V_per_s, x, m, SignOf(x.speed_rad_s), cache);
   const T torque_start = m.torque_constant * x.current_A;
-  if (abs(torque_start) > m.coulomb) return Turning(interval, voltage_V, slope_V_per_s, x, m, SignOf(torque_start));
+  if (abs(torque_start) > m.coulomb)
+    return Turning(interval, voltage_V, slope_V_per_s, x, m, SignOf(torque_start), cache);
   const T end_A = locked_rotor::Advance(interval_s, voltage_V, x.current_A, m.resistance_ohm, m.inductance_H,
                                         m.brush_drop_V, rest);
   const ShaftState<T> held{end_A, T(0.0), x.angle_rad};
@@ -145,7 +167,7 @@ ShaftState<T> AdvanceStep(double interval_s, double voltage_V, double slope_V_pe
   const T breakaway_s = start_s + tau_s * log(ratio);
   if (!(breakaway_s < interval)) return held;
   return Turning(interval - breakaway_s, voltage_V, slope_V_per_s, ShaftState<T>{breakaway_A, T(0.0), x.angle_rad}, m,
-                 direction);
+                 direction, static_cast<DiscretisationCache<T>*>(nullptr));
 }
 
 }  // namespace coilspin::step

@@ -58,21 +58,18 @@ double PeakMagnitude(const std::vector<double>& x) {
 }
 
 std::optional<double> LogTemperature(const BenchLog& log, const StepTemperatures& temperatures) {
-  if (log.temperature_degC.empty()) return temperatures.winding_degC;
-  return std::accumulate(log.temperature_degC.begin(), log.temperature_degC.end(), 0.0) /
-         static_cast<double>(log.temperature_degC.size());
+  if (auto logged = MeanLoggedTemperature(log)) return logged;
+  return temperatures.winding_degC;
 }
 
 }  // namespace
 
-StepResidual StepLog::Residual(StepChannel channel, bool torque_constant_is_back_emf) const {
+StepResidual StepLog::Residual(StepChannel channel) const {
   const std::vector<double>* measured = channel == StepChannel::kCurrent  ? &log->current_A
                                         : channel == StepChannel::kSpeed ? &log->speed_rad_s
                                                                           : &log->position_rad;
   StepResidual r{&log->time_s, &log->voltage_V, measured, channel, torque_constant_is_back_emf, temperature_factor, {},
-                 0.0};
-  const auto [low, high] = std::minmax_element(log->voltage_V.begin(), log->voltage_V.end());
-  r.jump_V = kJumpFraction * (*high - *low);
+                 jump_V};
   r.rest.voltage_V = kRestBandSigmas * voltage_noise_V;
   r.rest.current_A = kRestBandSigmas * current_noise_A;
   return r;
@@ -105,6 +102,8 @@ StepTestPlan PlanStep(const std::vector<const BenchLog*>& logs, std::optional<do
     const double speed_noise = s.fit_position ? NoiseFromDifferences(s.speed_rad_s) : s.motion_noise;
     s.current_noise_A = NoiseFromDifferences(log->current_A);
     s.voltage_noise_V = NoiseFromDifferences(log->voltage_V);
+    const auto [low_V, high_V] = std::minmax_element(log->voltage_V.begin(), log->voltage_V.end());
+    s.jump_V = kJumpFraction * (*high_V - *low_V);
     s.from_rest = std::fabs(Leading(s.speed_rad_s)) <= kTurningSigmas * speed_noise;
     const std::optional<double> theta_degC = LogTemperature(*log, temperatures);
     if (temperatures.reference_degC && theta_degC)
@@ -195,22 +194,22 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
         parameters->Ensure({"step_initial_current_" + tag, log.current_A.front(), peak_A > 0.0 ? peak_A : 1.0, {}, {}, false}),
         parameters->Ensure({"step_initial_speed_" + tag, s.from_rest ? 0.0 : Leading(s.speed_rad_s),
                             peak_speed > 0.0 ? peak_speed : 1.0, {}, {}, s.from_rest})};
-    std::vector<int> current = shared;
-    current.insert(current.end(), state.begin(), state.end());
+    s.torque_constant_is_back_emf = tied;
+    s.current_parameters = shared;
+    s.current_parameters.insert(s.current_parameters.end(), state.begin(), state.end());
     s.current_group = problem.AddGroup({log.path + " step current", s.current_noise_A > 0.0 ? s.current_noise_A : 1.0});
-    problem.AddResiduals(s.current_group, current, n, s.Residual(StepChannel::kCurrent, tied));
-    std::vector<int> motion = current;
-    StepChannel channel = StepChannel::kSpeed;
+    problem.AddResiduals(s.current_group, s.current_parameters, n, s.Residual(StepChannel::kCurrent));
+    s.motion_parameters = s.current_parameters;
     if (s.fit_position) {
-      channel = StepChannel::kPosition;
       const double theta0 = log.position_rad.front();
-      motion.push_back(parameters->Ensure({"step_initial_angle_" + tag, theta0, std::max(std::fabs(theta0), 1.0), {}, {}, false}));
+      s.motion_parameters.push_back(
+          parameters->Ensure({"step_initial_angle_" + tag, theta0, std::max(std::fabs(theta0), 1.0), {}, {}, false}));
     }
     core::GroupSpec motion_spec{log.path + (s.fit_position ? " step position" : " step speed"),
                                 s.motion_noise > 0.0 ? s.motion_noise : 1.0};
     motion_spec.quantised = s.fit_position;
     s.motion_group = problem.AddGroup(motion_spec);
-    problem.AddResiduals(s.motion_group, motion, n, s.Residual(channel, tied));
+    problem.AddResiduals(s.motion_group, s.motion_parameters, n, s.Residual(s.MotionChannel()));
   }
 }
 

@@ -47,10 +47,18 @@ struct StepLog {
   double voltage_noise_V = 0.0;
   double motion_noise = 0.0;               // σ of speed [rad/s] or position [rad]
   bool from_rest = false;                  // ω₀ = 0 exactly
+  double jump_V = 0.0;                     // a larger change between samples is a switched edge
   EquationErrorStart start;
+  // Set by AddStep: the residual groups and the problem's parameter indices of
+  // each channel's residual, in the functor's order (step_residual.h).
+  bool torque_constant_is_back_emf = false;
   int current_group = -1;
   int motion_group = -1;
-  StepResidual Residual(StepChannel channel, bool torque_constant_is_back_emf) const;
+  std::vector<int> current_parameters;
+  std::vector<int> motion_parameters;
+
+  StepChannel MotionChannel() const { return fit_position ? StepChannel::kPosition : StepChannel::kSpeed; }
+  StepResidual Residual(StepChannel channel) const;
 };
 
 struct StepTestPlan {

@@ -61,6 +61,7 @@ struct StepResidual {
     const std::vector<double>& v = *voltage_V;
     const std::vector<double>& y = *measured;
     const std::size_t n = t.size();
+    DiscretisationCache<T> cache;  // one A per evaluation: reused while Δ repeats
     for (std::size_t k = 0; k < n; ++k) {
       const T& modelled = channel == StepChannel::kCurrent ? x.current_A
                           : channel == StepChannel::kSpeed ? x.speed_rad_s
@@ -69,7 +70,7 @@ struct StepResidual {
       if (k + 1 == n) break;
       const double change_V = v[k + 1] - v[k];
       const double slope_V_per_s = std::fabs(change_V) > jump_V ? 0.0 : change_V / (t[k + 1] - t[k]);
-      x = AdvanceStep(t[k + 1] - t[k], v[k], slope_V_per_s, x, m, rest);
+      x = AdvanceStep(t[k + 1] - t[k], v[k], slope_V_per_s, x, m, rest, &cache);
     }
     return true;
   }

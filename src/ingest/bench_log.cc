@@ -1,5 +1,7 @@
 #include "src/ingest/bench_log.h"
 
+#include <numeric>
+
 namespace coilspin {
 
 const std::vector<double>& BenchLog::Channel(units::Quantity quantity) const {
@@ -27,5 +29,11 @@ std::vector<double>& BenchLog::Channel(units::Quantity quantity) {
 }
 
 bool BenchLog::Has(units::Quantity quantity) const { return !Channel(quantity).empty(); }
+
+std::optional<double> MeanLoggedTemperature(const BenchLog& log) {
+  if (log.temperature_degC.empty()) return std::nullopt;
+  return std::accumulate(log.temperature_degC.begin(), log.temperature_degC.end(), 0.0) /
+         static_cast<double>(log.temperature_degC.size());
+}
 
 }  // namespace coilspin

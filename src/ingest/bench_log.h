@@ -5,6 +5,7 @@
 // (already multiplied by the gear ratio when one was given).
 
 #include <cstddef>
+#include <optional>
 #include <string>
 #include <utility>
 #include <vector>
@@ -40,5 +41,8 @@ struct BenchLog {
   const std::vector<double>& Channel(units::Quantity quantity) const;
   std::vector<double>& Channel(units::Quantity quantity);
 };
+
+// The mean of the temperature column [degC]; empty when the log has none.
+std::optional<double> MeanLoggedTemperature(const BenchLog& log);
 
 }  // namespace coilspin

@@ -18,6 +18,7 @@
 #include <vector>
 
 #include "fitters/joint/motor_fit.h"
+#include "free_shaft/free_shaft_bench.h"
 #include "locked_rotor/simulated_bench.h"
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
@@ -34,19 +35,6 @@ struct Motor {
   double noise_scale = 1.0;             // step mode: every noise σ times this
   double supply_resistance_ohm = 0.0;   // step mode: R_s of the bench supply
 };
-
-inline model::MotorParameters Make(double r_ohm, double l_H, double k_V_s_per_rad, double j_kg_m2,
-                                   double b_N_m_s_per_rad, double tc_N_m, double vb_V) {
-  model::MotorParameters m;
-  m.resistance_ohm = r_ohm;
-  m.inductance_H = l_H;
-  m.back_emf_constant_V_s_per_rad = m.torque_constant_N_m_per_A = k_V_s_per_rad;  // SI: Kt = Ke
-  m.inertia_kg_m2 = j_kg_m2;
-  m.viscous_friction_N_m_s_per_rad = b_N_m_s_per_rad;
-  m.coulomb_friction_N_m = tc_N_m;
-  m.brush_drop_V = vb_V;
-  return m;
-}
 
 // Encoder resolutions: a common incremental encoder (joint) and a finer one (step).
 inline constexpr int kJointEncoderCountsPerRev = 1024;
@@ -94,10 +82,10 @@ inline model::FreeShaftStepPlan StepFromRest(const Motor& m) {
 }
 
 inline std::vector<Motor> JointMotors() {
-  return {{"small 12 V, speed", Make(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, false},
-          {"small 12 V, encoder, brushes", Make(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.7), 12.0, true},
-          {"6 V, speed, brushes", Make(0.8, 0.3e-3, 0.012, 6e-6, 3e-6, 8e-4, 0.5), 6.0, false},
-          {"24 V, encoder", Make(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.0), 24.0, true}};
+  return {{"small 12 V, speed", testing::IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.0), 12.0, false},
+          {"small 12 V, encoder, brushes", testing::IdealMotor(2.0, 1e-3, 0.03, 2e-5, 1e-5, 2e-3, 0.7), 12.0, true},
+          {"6 V, speed, brushes", testing::IdealMotor(0.8, 0.3e-3, 0.012, 6e-6, 3e-6, 8e-4, 0.5), 6.0, false},
+          {"24 V, encoder", testing::IdealMotor(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.0), 24.0, true}};
 }
 
 // No brushes: a step alone cannot separate Vb from R (fitters/step/step_fit.h).
@@ -105,9 +93,9 @@ inline std::vector<Motor> JointMotors() {
 // τm/τe between 6 and 15 so that a profile or bootstrap run stays within
 // minutes (a small hobby motor with τm/τe ≈ 85 costs about ten times more per fit).
 inline std::vector<Motor> StepMotors() {
-  return {{"servo 24 V, speed, Rs 0.1 ohm", Make(0.8, 2.5e-3, 0.06, 8e-5, 2e-5, 1.2e-2, 0.0), 24.0, false, 1.0, 0.1},
-          {"24 V, encoder, noise x2", Make(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.0), 24.0, true, 2.0, 0.0},
-          {"12 V, speed, noise x3, Rs 0.05 ohm", Make(3.0, 2e-3, 0.025, 2e-6, 2e-6, 1e-3, 0.0), 12.0, false, 3.0, 0.05}};
+  return {{"servo 24 V, speed, Rs 0.1 ohm", testing::IdealMotor(0.8, 2.5e-3, 0.06, 8e-5, 2e-5, 1.2e-2, 0.0), 24.0, false, 1.0, 0.1},
+          {"24 V, encoder, noise x2", testing::IdealMotor(0.6, 2e-3, 0.08, 4e-4, 8e-5, 1.5e-2, 0.0), 24.0, true, 2.0, 0.0},
+          {"12 V, speed, noise x3, Rs 0.05 ohm", testing::IdealMotor(3.0, 2e-3, 0.025, 2e-6, 2e-6, 1e-3, 0.0), 12.0, false, 3.0, 0.05}};
 }
 
 // Locked-rotor plateau levels, no-load levels (fractions of the top voltage) and holds.

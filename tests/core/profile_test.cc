@@ -17,7 +17,7 @@
 
 #include "core/ar1_line.h"
 #include "core/parameter_start.h"
-#include "core/python_reference.h"
+#include "reference/python_reference.h"
 #include "fitters/core/least_squares.h"
 #include "fitters/core/profile.h"
 

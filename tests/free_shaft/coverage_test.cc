@@ -5,6 +5,7 @@
 
 #include <gtest/gtest.h>
 
+#include "free_shaft/coverage_tally.h"
 #include "free_shaft/free_shaft_bench.h"
 
 namespace coilspin::testing {
@@ -22,7 +23,7 @@ TEST(FreeShaftCoverage, NominalIntervalsHoldTheTruth) {
   m.viscous_friction_N_m_s_per_rad = 8e-6;
   m.coulomb_friction_N_m = 1.8e-3;
   m.brush_drop_V = 0.4;
-  const std::pair<const char*, double> truths[] = {
+  const Truths truths = {
       {"resistance", m.resistance_ohm},         {"back_emf_constant", m.back_emf_constant_V_s_per_rad},
       {"inertia", m.inertia_kg_m2},             {"viscous_friction", m.viscous_friction_N_m_s_per_rad},
       {"coulomb_friction", m.coulomb_friction_N_m}, {"brush_drop", m.brush_drop_V}};
@@ -31,11 +32,7 @@ TEST(FreeShaftCoverage, NominalIntervalsHoldTheTruth) {
     BenchOptions o;
     o.seed = 1000 + 10 * k;
     const MotorEstimate e = joint::FitMotor(SimulateBench(m, 10.0, o), {});
-    for (const auto& [key, truth] : truths) {
-      const QuantityEstimate* q = e.Find(key);
-      ASSERT_NE(q, nullptr) << key;
-      if (q->ci_low <= truth && truth <= q->ci_high) ++covered[key];
-    }
+    CountCovered(e, truths, &covered);
   }
   for (const auto& [key, truth] : truths) EXPECT_GE(covered[key], kMinCovered) << key << " covered " << covered[key];
 }

@@ -15,6 +15,7 @@
 #include <sstream>
 
 #include "fitters/locked_rotor/locked_rotor_fit.h"
+#include "reference/python_reference.h"
 #include "src/ingest/read_bench_log.h"
 #include "src/model/simulate_locked_rotor.h"
 #include "src/output/bench_log_csv.h"
@@ -25,20 +26,8 @@ namespace {
 constexpr double kEstimateAgreement = 1e-6;
 constexpr double kStdErrorAgreement = 1e-3;
 
-bool SciPyAvailable() {
-  const std::string command = std::string(COILSPIN_PYTHON) + " -c 'import scipy' >/dev/null 2>&1";
-  return std::string(COILSPIN_PYTHON).size() > 0 && std::system(command.c_str()) == 0;
-}
-
-std::string RunCapture(const std::string& command) {
-  std::string text;
-  FILE* pipe = popen(command.c_str(), "r");
-  if (!pipe) return text;
-  char buffer[4096];
-  while (std::fgets(buffer, sizeof buffer, pipe)) text += buffer;
-  pclose(pipe);
-  return text;
-}
+using test_support::RunCapture;
+using test_support::SciPyAvailable;
 
 TEST(SciPyStepFit, EstimatesAndStandardErrorsAgree) {
   if (!SciPyAvailable())

@@ -5,35 +5,16 @@
 
 #include <string>
 
+#include "free_shaft/free_shaft_bench.h"
 #include "locked_rotor/simulated_bench.h"
 #include "src/model/simulate_step.h"
 
 namespace coilspin::testing {
 
 // Two motors unlike each other: a small hobby motor and a larger servo-class one.
-inline model::MotorParameters SmallMotor() {
-  model::MotorParameters m;
-  m.resistance_ohm = 2.2;
-  m.inductance_H = 0.6e-3;
-  m.back_emf_constant_V_s_per_rad = 0.012;
-  m.torque_constant_N_m_per_A = 0.012;
-  m.inertia_kg_m2 = 1.5e-6;
-  m.viscous_friction_N_m_s_per_rad = 2e-7;
-  m.coulomb_friction_N_m = 6e-4;
-  return m;
-}
+inline model::MotorParameters SmallMotor() { return IdealMotor(2.2, 0.6e-3, 0.012, 1.5e-6, 2e-7, 6e-4, 0.0); }
 
-inline model::MotorParameters ServoMotor() {
-  model::MotorParameters m;
-  m.resistance_ohm = 0.8;
-  m.inductance_H = 2.5e-3;
-  m.back_emf_constant_V_s_per_rad = 0.06;
-  m.torque_constant_N_m_per_A = 0.06;
-  m.inertia_kg_m2 = 8e-5;
-  m.viscous_friction_N_m_s_per_rad = 2e-5;
-  m.coulomb_friction_N_m = 0.012;
-  return m;
-}
+inline model::MotorParameters ServoMotor() { return IdealMotor(0.8, 2.5e-3, 0.06, 8e-5, 2e-5, 0.012, 0.0); }
 
 inline model::BenchConditions StepNoise(std::uint64_t seed, bool encoder, double scale = 1.0) {
   model::BenchConditions b;

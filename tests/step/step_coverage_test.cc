@@ -15,6 +15,7 @@
 #include <map>
 
 #include "fitters/joint/motor_fit.h"
+#include "free_shaft/coverage_tally.h"
 #include "step/step_bench.h"
 
 namespace coilspin::testing {
@@ -28,7 +29,7 @@ TEST(StepCoverage, NominalIntervalsHoldTheTruth) {
   model::FreeShaftStepPlan plan = StepFromRest(m, 24.0, false);
   plan.sample_period_s *= 2.0;  // 10 samples per electrical time constant, the least the fitter asks for
   plan.hold_s *= 0.6;           // three mechanical time constants
-  const std::pair<const char*, double> truths[] = {{"resistance", m.resistance_ohm},
+  const Truths truths = {{"resistance", m.resistance_ohm},
                                                    {"inductance", m.inductance_H},
                                                    {"back_emf_constant", m.back_emf_constant_V_s_per_rad},
                                                    {"inertia", m.inertia_kg_m2}};
@@ -36,11 +37,7 @@ TEST(StepCoverage, NominalIntervalsHoldTheTruth) {
   for (int k = 0; k < kBenches; ++k) {
     const BenchLog log = ToBenchLog(model::SimulateStep(m, plan, StepNoise(2000 + 7 * k, false)), "step.csv");
     const MotorEstimate e = joint::FitMotor({{TestKind::kStep, log}}, {});
-    for (const auto& [key, truth] : truths) {
-      const QuantityEstimate* q = e.Find(key);
-      ASSERT_NE(q, nullptr) << key;
-      if (q->ci_low <= truth && truth <= q->ci_high) ++covered[key];
-    }
+    CountCovered(e, truths, &covered);
   }
   for (const auto& [key, truth] : truths) EXPECT_GE(covered[key], kMinCovered) << key << " covered " << covered[key];
 }
