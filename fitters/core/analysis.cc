@@ -12,6 +12,11 @@
 namespace coilspin::core {
 namespace {
 
+// The lags of input noise asked for a quantised group, whose widening sums ρ_m
+// over Sokal's window (autocorrelation_widening.h): enough for τ_int up to 10
+// samples at kSokalWindow = 10; beyond it a_m counts as 0, which can only widen more.
+constexpr int kMaxExplainedLag = 100;
+
 Eigen::MatrixXd DenseFromCrs(const ceres::CRSMatrix& crs) {
   Eigen::MatrixXd dense = Eigen::MatrixXd::Zero(crs.num_rows, crs.num_cols);
   for (int row = 0; row < crs.num_rows; ++row) {
@@ -118,18 +123,24 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     term.weighted_rss = analysis.groups[g].weighted_residuals.squaredNorm();
     term.jacobian = analysis.groups[g].jacobian;
     term.sigma_known = groups_[g]->spec.sigma_known;
+    const GroupSpec& spec = groups_[g]->spec;
+    LaggedSums explained;  // a_m/σ_g², in the units of the weighted residuals
+    if (options.separate_input_noise && spec.input_noise && term.num_residuals > 0) {
+      explained = spec.input_noise(Values(), spec.quantised ? kMaxExplainedLag : 1);
+      const double sigma = groups_[g]->sigma;
+      for (double& sum : explained) sum /= sigma * sigma;
+      if (!explained.empty()) term.explained_sum_squares = explained.front();
+    }
     if (options.widen_for_autocorrelation) {
-      // ρ̂₁ does not depend on the weight 1/σ_g, so the weighted residuals serve.
       const AutocorrelationWidening widening =
-          groups_[g]->spec.quantised
-              ? DecideWidening(analysis.groups[g].weighted_residuals)
-              : DecideWidening(term.num_residuals, Lag1Autocorrelation(analysis.groups[g].weighted_residuals));
+          DecideWidening(analysis.groups[g].weighted_residuals, explained, spec.quantised);
       term.variance_inflation = widening.inflation;
       analysis.widening.push_back(widening);
     }
     terms.push_back(std::move(term));
   }
   analysis.breakdown = CombineGroups(inverse_information, terms, options.residual_variance_from_data);
+  analysis.inverse_information = inverse_information;
   analysis.has_covariance = true;
   if (options.residual_variance_from_data) {
     for (std::size_t g = 0; g < groups_.size(); ++g) {

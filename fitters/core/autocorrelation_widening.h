@@ -37,6 +37,16 @@
 // by the input-noise terms; τ_int on every group counted it twice (measured: L's
 // interval 30 times its spread).
 //
+// Input noise explained elsewhere. Part of a group's autocorrelation may come
+// from noise on a logged input that drives the model, which a separate
+// covariance term counts (input_noise_autocovariance.h). Given its expected
+// lagged sums a_m (in the weighted residuals' units), the decision and the
+// factor rest on what is left, the output noise's own autocorrelation
+//     ρ_m = (c_m − a_m)/(c_0 − a_0),   c_m = Σ_k (z_k − z̄)(z_{k+m} − z̄)
+// (a_m = 0 beyond the lags given). Left out, a step fit's current residuals,
+// whose lag-1 autocorrelation is mostly the logged voltage's noise seen
+// through the winding's lag, were widened for it on top of that term.
+//
 // When it breaks. The decision to widen still rests on ρ̂₁, so noise that is
 // correlated only beyond lag 1 is not widened; a drift that
 // is really model error gives ρ̂ near 1 and very wide intervals, which is the
@@ -46,6 +56,8 @@
 // Intervals change in a step when ρ̂ crosses the threshold.
 
 #include <Eigen/Dense>
+
+#include "fitters/core/input_noise_autocovariance.h"
 
 namespace coilspin::core {
 
@@ -92,5 +104,13 @@ double IntegratedAutocorrelationTime(const Eigen::VectorXd& residuals);
 // The decision for one group's residuals: DecideWidening on their ρ̂₁, then, when
 // widened, f = max(AR(1) factor, τ_int).
 AutocorrelationWidening DecideWidening(const Eigen::VectorXd& residuals);
+
+// The decision for one group's (weighted) residuals z, less the part `explained`
+// by input noise (a_0 … a_M in the units of z², empty for none): DecideWidening
+// on the remaining ρ_1, then, for a quantised reading and when widened,
+// f = max(AR(1) factor, τ_int of the remaining ρ_m). No widening when the
+// explained variance a_0 is not below c_0 (nothing of the group's own left).
+AutocorrelationWidening DecideWidening(const Eigen::VectorXd& residuals, const LaggedSums& explained,
+                                       bool quantised);
 
 }  // namespace coilspin::core

@@ -161,6 +161,7 @@ BootstrapResult Bootstrap(const LeastSquaresProblem& problem, const FitResult& f
   plan.options.estimate_group_sigmas = false;        // the full fit's σ_g, held
   plan.options.residual_variance_from_data = false;  // only θ* is kept; σ_g count as given
   plan.options.widen_for_autocorrelation = false;    // likewise, intervals of a replicate are unused
+  plan.options.separate_input_noise = false;
 
   const int hardware = std::max(1, static_cast<int>(std::thread::hardware_concurrency()));
   const int threads = std::min(options.replicates, options.threads == 0 ? hardware : options.threads);

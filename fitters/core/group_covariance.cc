@@ -33,7 +33,11 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     const double residual_dof = group.num_residuals - fitted;
     const double measured =
         residual_dof > kNoResidualDegreesOfFreedom ? group.weighted_rss / residual_dof : not_a_number;
-    const double used = variance_from_data && !group.sigma_known ? measured : 1.0;
+    // The group's own noise: less the input noise another term counts, never below 0.
+    const double own = residual_dof > kNoResidualDegreesOfFreedom
+                           ? std::max(group.weighted_rss - group.explained_sum_squares, 0.0) / residual_dof
+                           : not_a_number;
+    const double used = variance_from_data && !group.sigma_known ? own : 1.0;
     out.fitted_degrees_of_freedom.push_back(fitted);
     out.residual_degrees_of_freedom.push_back(residual_dof);
     const double inflation = group.variance_inflation;

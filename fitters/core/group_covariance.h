@@ -8,7 +8,9 @@
 //   h_g   = trace(C·J_gᵀJ_g)            the group's share of the p fitted degrees of
 //                                        freedom; Σ_g h_g = trace(C·JᵀJ) = p
 //   d_g   = n_g − h_g                    the group's residual degrees of freedom
-//   s_g²  = RSS_g / d_g                  its residual variance (1 when σ_g is known)
+//   s_g²  = RSS_g / d_g                  its residual variance (1 when σ_g is known);
+//                                        (RSS_g − a_0/σ_g²)/d_g, at least 0, when a
+//                                        part a_0 is input noise counted elsewhere
 //   M_g   = C·J_gᵀJ_g·C                  the sandwich term of group g; Σ_g M_g = C
 //   Cov x = Σ_g s_g²·M_g
 //   v_gj  = s_g²·[M_g]_jj                group g's part of Var(x_j)
@@ -51,6 +53,9 @@ struct GroupTerms {
   Eigen::MatrixXd jacobian;   // J_g = ∂(r/σ_g)/∂x, n_g × p
   double variance_inflation = 1.0;  // f_g ≥ 1 for autocorrelated residuals; 1 when independent
   bool sigma_known = false;         // s_g² = 1 and infinite degrees of freedom for this group
+  // a_0/σ_g²: the expected Σ (u/σ_g)² of input noise that another covariance term
+  // counts (input_noise_autocovariance.h); left out of s_g² = (RSS_g − a_0/σ_g²)/d_g.
+  double explained_sum_squares = 0.0;
 };
 
 struct CovarianceBreakdown {
@@ -61,7 +66,7 @@ struct CovarianceBreakdown {
   // s_g² actually used: RSS_g/d_g from the data, or 1 when σ_g is known. NaN when
   // estimated from the data but d_g is not positive; 0 for a group without residuals.
   std::vector<double> residual_variance;
-  // RSS_g/d_g, whether or not it was used (NaN when d_g is not positive).
+  // RSS_g/d_g, whether or not it was used, input noise included (NaN when d_g is not positive).
   std::vector<double> measured_residual_variance;
   Eigen::MatrixXd variance_parts;        // v_gj (times f_g), groups × p
   Eigen::MatrixXd covariance;            // Cov x, p × p

@@ -64,6 +64,7 @@
 #include <functional>
 #include <vector>
 
+#include "fitters/core/input_noise_autocovariance.h"
 #include "fitters/core/robust_loss.h"
 
 namespace coilspin::core {
@@ -90,6 +91,12 @@ struct GroupSpec {
   // (autocorrelation_widening.h). Off elsewhere: where a group's slow error is
   // the logged input's noise, the input-noise terms count it already.
   bool quantised = false;
+  // Noise on a logged input that drives this group's model, counted by a covariance
+  // term of the caller's (input_noise_autocovariance.h): when set, the covariance
+  // step leaves its expected share out of s_g² and out of the autocorrelation
+  // widening, so that it is not counted twice. Evaluated at the solution, on the
+  // caller's thread, only with SolveOptions::separate_input_noise.
+  InputNoiseModel input_noise = nullptr;
 };
 
 struct SolveOptions {
@@ -110,6 +117,11 @@ struct SolveOptions {
   // by (1+ρ₁)/(1−ρ₁) and take their degrees of freedom from n_eff
   // (autocorrelation_widening.h). With known σ_g the quantile stays normal.
   bool widen_for_autocorrelation = true;
+  // For groups with GroupSpec::input_noise: correct the estimate for the bias the
+  // input noise puts into an output-error fit (input_noise_bias.cc), and leave its
+  // share out of their s_g² and widening (input_noise_autocovariance.h). Off where
+  // only the cost is used (bootstrap replicates, profile solves).
+  bool separate_input_noise = true;
   // Loss on the weighted residuals (robust_loss.h). A robust loss needs a noise
   // scale: either estimate_group_sigmas (σ_g from 1.4826·MAD of the residuals)
   // or σ_g known (residual_variance_from_data = false).
@@ -143,6 +155,9 @@ struct GroupStatistics {
   // measured; the covariance uses it only with residual_variance_from_data. NaN
   // when n_g − h_g is not positive.
   double residual_variance = 0.0;
+  // The s_g² the covariance used: residual_variance less the input noise counted
+  // apart (GroupSpec::input_noise), or 1 when σ_g is known.
+  double own_residual_variance = 0.0;
   double rms = 0.0;                  // RMS of the unweighted residuals, in their unit
   double lag1_autocorrelation = 0.0; // of the residual sequence, in order of addition
   double degrees_of_freedom = 0.0;   // n_g − h_g
@@ -173,10 +188,17 @@ struct FitResult {
   std::vector<ParameterEstimate> parameters;  // same order as added
   Eigen::MatrixXd covariance;        // physical units, estimated parameters and fixed ones (zero rows)
   Eigen::MatrixXd correlation;       // same layout; rows of fixed parameters are zero
+  // (JᵀWJ)⁻¹ in physical units, same layout: the estimator's linearisation
+  // δθ = (JᵀWJ)⁻¹·JᵀW·δr, W = diag(1/σ_g²), for error propagation by the caller
+  // (the input-noise terms); unlike `covariance` it carries no s_g² and no widening.
+  Eigen::MatrixXd inverse_information;
   std::vector<GroupStatistics> groups;
   // Each null direction of JᵀJ, as the names of the parameters it involves.
   std::vector<std::vector<std::string>> not_identifiable;
   SolveOptions options;              // the options of this solve (loss, widening, …)
+  // θ_c − θ̂ per parameter (physical, same order), the input-noise bias correction
+  // applied after the solve (SolveOptions::separate_input_noise); all 0 when none.
+  std::vector<double> input_noise_correction;
 
   const ParameterEstimate& Get(const std::string& name) const;  // asserts the name exists
   int IndexOf(const std::string& name) const;                     // -1 when absent
@@ -313,6 +335,10 @@ class LeastSquaresProblem {
                                                          double rank_tolerance);
   FitAnalysis Analyse(const SolveOptions& options, const std::vector<int>& estimated);
   bool RescaleGroupSigmas(const FitAnalysis& analysis);
+  // Input-noise bias correction (input_noise_bias.cc): the step ½·C·∇A in x, empty
+  // when no group models its input noise; and its application (within the bounds).
+  Eigen::VectorXd InputNoiseBiasStep(const std::vector<int>& estimated, const FitAnalysis& analysis) const;
+  bool CorrectInputNoiseBias(const std::vector<int>& estimated, const FitAnalysis& analysis);
   FitResult Report(const SolveOptions& options, const std::vector<int>& estimated, const SolveRun& run,
                    const FitAnalysis& analysis) const;
 

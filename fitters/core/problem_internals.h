@@ -58,6 +58,7 @@ struct FitAnalysis {
   std::vector<std::vector<int>> null_directions;  // positions in the estimated list
   bool has_covariance = false;
   CovarianceBreakdown breakdown;
+  Eigen::MatrixXd inverse_information;            // C = (JᵀJ)⁻¹ in the scaled parameters, p × p
   std::vector<AutocorrelationWidening> widening;  // per group; none applied when empty
   std::string failure;  // why no usable covariance; empty when there is one
 };

@@ -160,13 +160,14 @@ ProfileInterval Profile(const LeastSquaresProblem& problem, const FitResult& fit
   for (int g = 0; g < problem.NumGroups(); ++g) {
     const GroupStatistics& group = fit.groups[static_cast<std::size_t>(g)];
     if (group.num_residuals == 0) continue;
-    const double variance = fit.options.residual_variance_from_data ? group.residual_variance : 1.0;
+    const double variance = fit.options.residual_variance_from_data ? group.own_residual_variance : 1.0;
     base->SetGroupSigma(g, group.sigma * std::sqrt(variance * group.variance_inflation));
   }
   SolveOptions solve = fit.options;
   solve.estimate_group_sigmas = false;
   solve.residual_variance_from_data = false;  // σ'_g count as known; only the cost is used
   solve.widen_for_autocorrelation = false;
+  solve.separate_input_noise = false;
   const FitResult minimum = base->Solve(solve);
   out.solves = 1;
   if (!minimum.converged) {

@@ -35,6 +35,8 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
   for (const auto& group : groups_) result.num_residuals += group->num_residuals;
   result.covariance = Eigen::MatrixXd::Zero(count, count);
   result.correlation = Eigen::MatrixXd::Zero(count, count);
+  result.inverse_information = Eigen::MatrixXd::Zero(count, count);
+  result.input_noise_correction.assign(static_cast<std::size_t>(count), 0.0);
 
   // Physical covariance of the estimated parameters: S·Cov(x)·S.
   Eigen::VectorXd scales(p);
@@ -43,11 +45,13 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
   }
   if (analysis.has_covariance) {
     const Eigen::MatrixXd physical = scales.asDiagonal() * analysis.breakdown.covariance * scales.asDiagonal();
+    const Eigen::MatrixXd bread = scales.asDiagonal() * analysis.inverse_information * scales.asDiagonal();
     for (Eigen::Index a = 0; a < p; ++a) {
       for (Eigen::Index b = 0; b < p; ++b) {
         const Eigen::Index i = estimated[static_cast<std::size_t>(a)];
         const Eigen::Index j = estimated[static_cast<std::size_t>(b)];
         result.covariance(i, j) = physical(a, b);
+        result.inverse_information(i, j) = bread(a, b);
         const double denominator = std::sqrt(physical(a, a) * physical(b, b));
         result.correlation(i, j) = denominator > 0.0 ? physical(a, b) / denominator : 0.0;
       }
@@ -102,6 +106,7 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
     if (analysis.has_covariance) {
       const CovarianceBreakdown& breakdown = analysis.breakdown;
       statistics.residual_variance = breakdown.measured_residual_variance[g];
+      statistics.own_residual_variance = breakdown.residual_variance[g];
       statistics.degrees_of_freedom = breakdown.residual_degrees_of_freedom[g];
       statistics.fitted_degrees_of_freedom = breakdown.fitted_degrees_of_freedom[g];
       for (Eigen::Index k = 0; k < p; ++k) {

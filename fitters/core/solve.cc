@@ -202,7 +202,14 @@ FitResult LeastSquaresProblem::Solve(const SolveOptions& options) {
     if (solves == num_solves || !RescaleGroupSigmas(analysis)) break;
   }
   run.iterations = iterations;
+  const std::vector<double> solved = Values();
+  if (options.separate_input_noise && analysis.has_covariance && analysis.failure.empty() &&
+      Converged(run.summary.termination_type) && CorrectInputNoiseBias(estimated, analysis)) {
+    analysis = Analyse(options, estimated);  // the covariance at the corrected estimate
+  }
   FitResult result = Report(options, estimated, run, analysis);
+  const std::vector<double> corrected = Values();
+  for (std::size_t j = 0; j < corrected.size(); ++j) result.input_noise_correction[j] = corrected[j] - solved[j];
   result.num_solves = solves;
   return result;
 }

@@ -67,8 +67,8 @@ void AddVoltageNoiseCovariance(const LockedRotorPlan& plan, const core::SharedPa
       u.col(static_cast<Eigen::Index>(m)) = c_m * sum / (sigma_i * sigma_i);
     }
     Eigen::MatrixXd cov_columns(p, kStepParameters);
-    for (int j = 0; j < kStepParameters; ++j) cov_columns.col(j) = fit->covariance.col(index[j]);
-    const Eigen::MatrixXd g = cov_columns * u;  // Cov·U
+    for (int j = 0; j < kStepParameters; ++j) cov_columns.col(j) = fit->inverse_information.col(index[j]);
+    const Eigen::MatrixXd g = cov_columns * u;  // C·U
     extra += sigma_v * sigma_v * g * g.transpose();
   }
   core::AddCovariance(extra, fit);

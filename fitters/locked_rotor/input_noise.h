@@ -7,8 +7,11 @@
 // the white current-noise model of the residuals does not count; left out, it
 // makes the intervals of R and L too narrow (docs/coverage.md). Its share of
 // the covariance follows from first-order error propagation (a sandwich term):
-//     δθ = −Cov·Σ_k J_kᵀ·δr_k/σ_i²,   δr_k = −Σ_m M_km·δv_m,   M_km = ∂î_k/∂v_m
-//     Cov_v = Cov·U·σ_v²·Uᵀ·Cov,      U = Jᵀ·M/σ_i²
+//     δθ = −C·Σ_k J_kᵀ·δr_k/σ_i²,   δr_k = −Σ_m M_km·δv_m,   M_km = ∂î_k/∂v_m
+//     Cov_v = C·U·σ_v²·Uᵀ·C,      U = Jᵀ·M/σ_i²
+// with C = (JᵀWJ)⁻¹ (FitResult::inverse_information), the estimator's own
+// linearisation: not the reported covariance, whose s_g² and autocorrelation
+// widening describe the output noise and would scale this term a second time.
 // with J = ∂î/∂θ of the step capture. From the recursion
 // î_{k+1} = a_k·î_k + (1 − a_k)·u_k/R, M_km = c_m·Π_{l=m+1}^{k−1} a_l for k > m,
 // c_m = (1 − a_m)/R·[|v_m| > Vb], so U is computed by one backward pass:

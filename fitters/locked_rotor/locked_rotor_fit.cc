@@ -296,8 +296,12 @@ void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
     for (double i : sl.log->current_A) peak_A = std::max(peak_A, std::fabs(i));
     const int i0 = parameters->Ensure({"initial_current_" + std::to_string(s), sl.initial_current_A,
                                        peak_A > 0.0 ? peak_A : 1.0, {}, {}, false});
-    sl.group = problem.AddGroup({sl.log->path + " step current", sl.current_noise_A > 0.0 ? sl.current_noise_A : 1.0});
-    problem.AddResiduals(sl.group, {r, l, vb, i0}, static_cast<int>(sl.log->size()), StepResidualOf(sl));
+    core::GroupSpec spec{sl.log->path + " step current", sl.current_noise_A > 0.0 ? sl.current_noise_A : 1.0};
+    const int n = static_cast<int>(sl.log->size());
+    spec.input_noise = core::ProbedInputNoise(StepResidualOf(sl), &StepCurrentResidual::voltage_V, {r, l, vb, i0}, n,
+                                              sl.voltage_noise_V);  // counted by input_noise.h
+    sl.group = problem.AddGroup(spec);
+    problem.AddResiduals(sl.group, {r, l, vb, i0}, n, StepResidualOf(sl));
   }
 }
 

@@ -90,7 +90,7 @@ void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, core::FitResult* fi
       moment += g * g.transpose();
     }
     moment /= static_cast<double>(kInputNoiseProbes);
-    extra += fit->covariance * moment * fit->covariance;
+    extra += fit->inverse_information * moment * fit->inverse_information;  // C·E[g·gᵀ]·C
   }
   core::AddCovariance(extra, fit);
 }

@@ -10,7 +10,10 @@
 // term and 40 with it; R 32 and 40, Ke 30 and 40, J 33 and 39; with σ_v = 2 mV
 // the term changes little). To first order (a sandwich term, as for
 // the locked-rotor capture, fitters/locked_rotor/input_noise.h),
-//     δθ = Cov·g,   g = Σ_c J_cᵀ·δŷ_c/σ_c²,   Cov_v = Cov·E[g·gᵀ]·Cov
+//     δθ = C·g,   g = Σ_c J_cᵀ·δŷ_c/σ_c²,   Cov_v = C·E[g·gᵀ]·C
+// with C = (JᵀWJ)⁻¹ (FitResult::inverse_information), not the reported
+// covariance (whose s_g² and widening describe the output noise alone: the
+// groups leave this noise out of both, GroupSpec::input_noise)
 // over the channels c of the log, with δŷ_c the change of the modelled output
 // when the input moves by δv. Here E[g·gᵀ] is estimated by random probes:
 // δv = σ_v·z with z standard normal and independent per sample, δŷ from one

@@ -197,7 +197,11 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
     s.torque_constant_is_back_emf = tied;
     s.current_parameters = shared;
     s.current_parameters.insert(s.current_parameters.end(), state.begin(), state.end());
-    s.current_group = problem.AddGroup({log.path + " step current", s.current_noise_A > 0.0 ? s.current_noise_A : 1.0});
+    // The logged voltage's noise in each channel is counted by input_noise.h.
+    core::GroupSpec current_spec{log.path + " step current", s.current_noise_A > 0.0 ? s.current_noise_A : 1.0};
+    current_spec.input_noise = core::ProbedInputNoise(s.Residual(StepChannel::kCurrent), &StepResidual::voltage_V,
+                                                      s.current_parameters, n, s.voltage_noise_V);
+    s.current_group = problem.AddGroup(current_spec);
     problem.AddResiduals(s.current_group, s.current_parameters, n, s.Residual(StepChannel::kCurrent));
     s.motion_parameters = s.current_parameters;
     if (s.fit_position) {
@@ -208,6 +212,8 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
     core::GroupSpec motion_spec{log.path + (s.fit_position ? " step position" : " step speed"),
                                 s.motion_noise > 0.0 ? s.motion_noise : 1.0};
     motion_spec.quantised = s.fit_position;
+    motion_spec.input_noise = core::ProbedInputNoise(s.Residual(s.MotionChannel()), &StepResidual::voltage_V,
+                                                     s.motion_parameters, n, s.voltage_noise_V);
     s.motion_group = problem.AddGroup(motion_spec);
     problem.AddResiduals(s.motion_group, s.motion_parameters, n, s.Residual(s.MotionChannel()));
   }
