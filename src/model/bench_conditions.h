@@ -21,6 +21,9 @@ struct BenchConditions {
   double speed_noise_sigma_rad_s = 0.0;  // on the logged speed, at the logged shaft
   double torque_noise_sigma_N_m = 0.0;   // on the logged torque (load cell)
   int encoder_counts_per_rev = 0;        // 0 = no encoder: position is logged exactly
+  // Where the shaft rests within a count when the log starts, as a fraction of a
+  // count in [0, 1): 0 puts it exactly on an edge; a real shaft rests anywhere.
+  double encoder_start_phase = 0.0;
   double gear_ratio = 1.0;               // motor turns per output turn: logged ω_out = ω/N, θ_out = θ/N
   std::uint64_t seed = 1;              // noise is reproducible for a given seed
 };

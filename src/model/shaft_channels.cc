@@ -8,10 +8,10 @@
 
 namespace coilspin::model {
 
-std::int64_t EncoderCount(double output_position_rad, int counts_per_rev) {
-  // n = floor(θ_out·cpr/2π)
+std::int64_t EncoderCount(double output_position_rad, int counts_per_rev, double start_phase) {
+  // n = floor(θ_out·cpr/2π + φ)
   return static_cast<std::int64_t>(
-      std::floor(output_position_rad * counts_per_rev / units::kRadiansPerRevolution));
+      std::floor(output_position_rad * counts_per_rev / units::kRadiansPerRevolution + start_phase));
 }
 
 void ValidateShaftReadout(const BenchConditions& bench) {
@@ -20,6 +20,9 @@ void ValidateShaftReadout(const BenchConditions& bench) {
   }
   if (bench.encoder_counts_per_rev < 0) {
     throw std::invalid_argument("shaft readout: the encoder counts per revolution must be >= 0");
+  }
+  if (!(bench.encoder_start_phase >= 0.0 && bench.encoder_start_phase < 1.0)) {
+    throw std::invalid_argument("shaft readout: the encoder start phase must lie in [0, 1) of a count");
   }
 }
 
@@ -43,7 +46,7 @@ void LogShaft(const std::vector<double>& motor_speed_rad_s,
     if (cpr > 0) {
       // θ_logged = n·2π/cpr
       log.position_rad[k] =
-          static_cast<double>(EncoderCount(output_rad, cpr)) * units::kRadiansPerRevolution / cpr;
+          static_cast<double>(EncoderCount(output_rad, cpr, bench.encoder_start_phase)) * units::kRadiansPerRevolution / cpr;
     }
   }
 }

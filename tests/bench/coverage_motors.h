@@ -14,6 +14,7 @@
 // small brushed motors (from memory).
 
 #include <cstdint>
+#include <random>
 #include <string>
 #include <vector>
 
@@ -40,12 +41,21 @@ struct Motor {
 inline constexpr int kJointEncoderCountsPerRev = 1024;
 inline constexpr int kStepEncoderCountsPerRev = 4096;
 
+// Where the shaft rests within a count at the start of a log: anywhere, uniform
+// in [0, 1) of a count, drawn from the log's seed (a shaft stopped by the last
+// test rests at no particular place relative to the encoder's edges).
+inline double EncoderStartPhase(std::uint64_t seed) {
+  std::mt19937_64 generator(seed);
+  return std::uniform_real_distribution<double>(0.0, 1.0)(generator);
+}
+
 inline model::BenchConditions JointNoise(std::uint64_t seed, bool encoder, double scale) {
   model::BenchConditions b;
   b.voltage_noise_sigma_V = 5e-3 * scale;
   b.current_noise_sigma_A = 2e-3 * scale;
   b.speed_noise_sigma_rad_s = encoder ? 0.0 : 0.2 * scale;
   b.encoder_counts_per_rev = encoder ? kJointEncoderCountsPerRev : 0;
+  b.encoder_start_phase = EncoderStartPhase(seed);
   b.seed = seed;
   return b;
 }
@@ -58,6 +68,7 @@ inline model::BenchConditions StepNoise(const Motor& m, std::uint64_t seed) {
   b.speed_noise_sigma_rad_s = m.encoder ? 0.0 : 0.3 * m.noise_scale;
   b.encoder_counts_per_rev = m.encoder ? kStepEncoderCountsPerRev : 0;
   b.supply_resistance_ohm = m.supply_resistance_ohm;
+  b.encoder_start_phase = EncoderStartPhase(seed);
   b.seed = seed;
   return b;
 }

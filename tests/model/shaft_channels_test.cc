@@ -58,6 +58,34 @@ TEST(ShaftChannels, NegativeAnglesRoundDownToTheCountBelow) {
   EXPECT_EQ(EncoderCount(2.5 * kTwoPi, kCpr), 2500);
 }
 
+TEST(ShaftChannels, StartPhaseMovesTheFirstEdgeButNotTheZero) {
+  // from the definition n = floor(θ·cpr/2π + φ): zeroed at the start (n = 0 at θ = 0
+  // for any φ in [0, 1)), the first edge comes after 1 − φ of a count forwards and
+  // the first one backwards after φ
+  constexpr int kCpr = 1000;
+  constexpr double kPhase = 0.7;
+  const double count_rad = kTwoPi / kCpr;
+  EXPECT_EQ(EncoderCount(0.0, kCpr, kPhase), 0);
+  EXPECT_EQ(EncoderCount(0.29 * count_rad, kCpr, kPhase), 0);
+  EXPECT_EQ(EncoderCount(0.31 * count_rad, kCpr, kPhase), 1);
+  EXPECT_EQ(EncoderCount(-0.69 * count_rad, kCpr, kPhase), 0);
+  EXPECT_EQ(EncoderCount(-0.71 * count_rad, kCpr, kPhase), -1);
+  // On a simulated log: every reading is the shifted floor, and a phase outside [0, 1) is refused.
+  BenchConditions shifted;
+  shifted.encoder_counts_per_rev = kCpr;
+  shifted.encoder_start_phase = kPhase;
+  const SampledLog exact = SimulateNoLoad(kMotor, Plan(ShaftChannels::kSpeedAndPosition), BenchConditions{});
+  const SampledLog counted = SimulateNoLoad(kMotor, Plan(ShaftChannels::kPosition), shifted);
+  ASSERT_EQ(counted.position_rad.size(), exact.position_rad.size());
+  for (std::size_t k = 0; k < exact.position_rad.size(); ++k) {
+    EXPECT_EQ(std::llround(counted.position_rad[k] / count_rad),
+              static_cast<long long>(std::floor(exact.position_rad[k] / count_rad + kPhase)))
+        << k;
+  }
+  shifted.encoder_start_phase = 1.0;
+  EXPECT_THROW(SimulateNoLoad(kMotor, Plan(ShaftChannels::kPosition), shifted), std::invalid_argument);
+}
+
 TEST(ShaftChannels, GearboxDividesSpeedAndPositionByTheRatio) {
   // physics (a gearbox of N motor turns per output turn): ω_out = ω/N, θ_out = θ/N; the
   // electrical channels do not see the gearbox (its friction is part of B and Tc)
