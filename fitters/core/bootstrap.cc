@@ -45,6 +45,10 @@ struct Plan {
   std::vector<Eigen::VectorXd> residuals;   // r̂_g
   std::vector<int> block_lengths;           // ℓ_g
   SolveOptions options;                     // the full fit's, with σ_g held
+  // The full fit's input-noise bias correction θ_c − θ̂ (input_noise_bias.cc): a
+  // replicate solves plain least squares and is shifted by it, the correction
+  // being nearly the same for every replicate (it varies with θ only).
+  std::vector<double> correction;
 };
 
 // θ*_b, or nothing when the replicate's solve did not converge.
@@ -62,8 +66,9 @@ std::optional<std::vector<double>> RunReplicate(LeastSquaresProblem& clone, cons
   const FitResult fit = clone.Solve(plan.options);
   if (!fit.converged) return std::nullopt;
   std::vector<double> values = clone.Values();
-  for (double value : values) {
-    if (!std::isfinite(value)) return std::nullopt;
+  for (std::size_t j = 0; j < values.size(); ++j) {
+    if (j < plan.correction.size()) values[j] += plan.correction[j];
+    if (!std::isfinite(values[j])) return std::nullopt;
   }
   return values;
 }
@@ -162,6 +167,7 @@ BootstrapResult Bootstrap(const LeastSquaresProblem& problem, const FitResult& f
   plan.options.residual_variance_from_data = false;  // only θ* is kept; σ_g count as given
   plan.options.widen_for_autocorrelation = false;    // likewise, intervals of a replicate are unused
   plan.options.separate_input_noise = false;
+  plan.correction = fit.input_noise_correction;
 
   const int hardware = std::max(1, static_cast<int>(std::thread::hardware_concurrency()));
   const int threads = std::min(options.replicates, options.threads == 0 ? hardware : options.threads);

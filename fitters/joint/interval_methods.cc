@@ -47,9 +47,12 @@ void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::
     // The Wald sides kept already include the input term; the profile's own sides do not.
     const double input = input_covariance(index, index);
     const double k = InputStretch(input, p.std_error * p.std_error - input);  // vs the output-only Wald variance
-    if (profile.low.found) p.ci_low = p.value - k * (p.value - profile.low.bound);
+    // The profile is of the plain least-squares cost, centred on θ̂ = θ_c − (θ_c − θ̂): its
+    // sides are kept as distances from θ̂ and laid around the corrected estimate θ_c.
+    const double least_squares = p.value - fit->input_noise_correction[static_cast<std::size_t>(index)];
+    if (profile.low.found) p.ci_low = p.value - k * (least_squares - profile.low.bound);
     else notes->push_back(name + ": profile lower side not found (" + profile.low.reason + "); Wald side kept");
-    if (profile.high.found) p.ci_high = p.value + k * (profile.high.bound - p.value);
+    if (profile.high.found) p.ci_high = p.value + k * (profile.high.bound - least_squares);
     else notes->push_back(name + ": profile upper side not found (" + profile.high.reason + "); Wald side kept");
   }
 }

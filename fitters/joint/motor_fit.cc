@@ -319,6 +319,30 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                                   "): its share of the variance widened by " + Format("%.2f", g.variance_inflation) +
                                   " (effective sample size " + Format("%.0f", g.effective_num_residuals) + " of " +
                                   std::to_string(g.num_residuals) + "); --intervals bootstrap resamples blocks instead");
+  if (fit.usable) {
+    // The errors-in-variables correction of the models driven by the logged voltage (core::input_noise_bias.cc).
+    // Shifts are given in standard errors to two decimals; smaller ones are summed up as such.
+    std::string shifts;
+    bool corrected = false, small = false;
+    for (const auto& info : kPhysical) {
+      const int index = parameters.Index(info.key);
+      if (index < 0 || fit.parameters[index].fixed) continue;
+      const double shift = fit.input_noise_correction[static_cast<std::size_t>(index)];
+      if (shift == 0.0 || !(fit.parameters[index].std_error > 0.0)) continue;
+      corrected = true;
+      const std::string in_se = Format("%+.2f", shift / fit.parameters[index].std_error);
+      if (in_se == "+0.00" || in_se == "-0.00") {
+        small = true;
+        continue;
+      }
+      shifts += std::string(shifts.empty() ? "" : ", ") + info.symbol + " " + in_se + " se";
+    }
+    if (corrected)
+      e.intervals.notes.push_back(
+          "estimates corrected for the bias that the logged voltage's noise puts into the step models (errors in "
+          "variables): " + (shifts.empty() ? std::string("every parameter") : shifts) +
+          (small ? (shifts.empty() ? " by less than 0.005 se" : "; the others by less than 0.005 se") : ""));
+  }
   e.solver.push_back(core::ToSolverSummary(fit));
 
   // 4. Each test reports its residuals (and the locked-rotor test its own notes).
