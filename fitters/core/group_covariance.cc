@@ -15,6 +15,7 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
 
   CovarianceBreakdown out;
   out.variance_parts = Eigen::MatrixXd::Zero(num_groups, p);
+  out.counted_parts = Eigen::MatrixXd::Zero(num_groups, p);
   out.covariance = Eigen::MatrixXd::Zero(p, p);
   out.degrees_of_freedom = Eigen::VectorXd::Constant(p, infinity);
 
@@ -51,6 +52,12 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     const Eigen::MatrixXd sandwich = projected.transpose() * projected;  // M_g = C·J_gᵀJ_g·C
     out.covariance += inflation * used * sandwich;
     out.variance_parts.row(g) = inflation * used * sandwich.diagonal().transpose();
+    if (group.counted_moment.size() > 0) {
+      const Eigen::MatrixXd counted = c * group.counted_moment * c;  // C·E[g·gᵀ]·C
+      out.covariance += counted;
+      out.counted_parts.row(g) = counted.diagonal().transpose();
+      out.variance_parts.row(g) += out.counted_parts.row(g);
+    }
   }
 
   if (!variance_from_data) return out;
@@ -58,9 +65,9 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     double total = 0.0;
     double spread = 0.0;
     for (Eigen::Index g = 0; g < num_groups; ++g) {
-      const double part = out.variance_parts(g, j);
+      total += out.variance_parts(g, j);
+      const double part = out.variance_parts(g, j) - out.counted_parts(g, j);  // the estimated share
       if (part == 0.0) continue;
-      total += part;
       spread += part * part / out.effective_degrees_of_freedom[static_cast<std::size_t>(g)];
     }
     out.degrees_of_freedom(j) = spread > 0.0 ? total * total / spread : infinity;

@@ -15,7 +15,8 @@
 //   Cov x = Σ_g s_g²·M_g
 //   v_gj  = s_g²·[M_g]_jj                group g's part of Var(x_j)
 //   ν_j   = (Σ_g v_gj)² / Σ_g (v_gj² / d_g)   Welch–Satterthwaite (Satterthwaite,
-//                                        Biometrics Bulletin 2(6):110–114, 1946)
+//                                        Biometrics Bulletin 2(6):110–114, 1946); a
+//                                        counted term (below) joins the numerator only
 //
 // For one group these reduce to h = p, s² = RSS/(n − p), Cov x = s²·C and
 // ν = n − p, the textbook nonlinear regression results (Bates & Watts,
@@ -56,6 +57,10 @@ struct GroupTerms {
   // a_0/σ_g²: the expected Σ (u/σ_g)² of input noise that another covariance term
   // counts (input_noise_autocovariance.h); left out of s_g² = (RSS_g − a_0/σ_g²)/d_g.
   double explained_sum_squares = 0.0;
+  // E[g·gᵀ] of an error counted exactly (a quantised reading, quantisation.h),
+  // g = J_gᵀ·z for its weighted realisations z; p × p, or empty. Its term C·E[g·gᵀ]·C
+  // joins Cov x and the group's v_gj, with no degrees of freedom (it is not estimated).
+  Eigen::MatrixXd counted_moment;
 };
 
 struct CovarianceBreakdown {
@@ -68,7 +73,8 @@ struct CovarianceBreakdown {
   std::vector<double> residual_variance;
   // RSS_g/d_g, whether or not it was used, input noise included (NaN when d_g is not positive).
   std::vector<double> measured_residual_variance;
-  Eigen::MatrixXd variance_parts;        // v_gj (times f_g), groups × p
+  Eigen::MatrixXd variance_parts;        // v_gj (times f_g), counted terms included, groups × p
+  Eigen::MatrixXd counted_parts;         // the counted terms' share of v_gj, groups × p
   Eigen::MatrixXd covariance;            // Cov x, p × p
   Eigen::VectorXd degrees_of_freedom;    // ν_j, +infinity when σ_g are known
 };

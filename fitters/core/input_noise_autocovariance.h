@@ -32,6 +32,7 @@
 // measurement noise: supply ripple that the winding really sees is signal, and
 // then a_m is too large and the group's own term too small.
 
+#include <Eigen/Dense>
 #include <cstdint>
 #include <functional>
 #include <vector>
@@ -59,6 +60,10 @@ using InputNoiseModel = std::function<LaggedSums(const std::vector<double>& valu
 // when the model cannot be evaluated.
 using ResidualsForInput =
     std::function<bool(const std::vector<double>& input, std::vector<double>* residuals)>;
+
+// The average over realisations u of Σ_k u_k·u_{k+m}, m = 0 … max_lag (fewer
+// when the realisations are shorter). Empty for no realisations.
+LaggedSums MeanLaggedSums(const std::vector<Eigen::VectorXd>& realisations, int max_lag);
 
 // a_0 … a_max_lag by random probes of white noise of σ = sigma_input on `input`.
 // Empty when sigma_input is not positive or an evaluation fails.

@@ -65,6 +65,7 @@
 #include <vector>
 
 #include "fitters/core/input_noise_autocovariance.h"
+#include "fitters/core/quantisation.h"
 #include "fitters/core/robust_loss.h"
 
 namespace coilspin::core {
@@ -97,6 +98,13 @@ struct GroupSpec {
   // widening, so that it is not counted twice. Evaluated at the solution, on the
   // caller's thread, only with SolveOptions::separate_input_noise.
   InputNoiseModel input_noise = nullptr;
+  // A reading quantised in whole steps of `quantisation_step` (an encoder's count,
+  // in the group's unit; 0: not modelled), whose modelled value `modelled_reading`
+  // gives: its error is counted exactly over the unknown phase of the steps
+  // (quantisation.h), and left out of s_g² and the widening. Only with
+  // SolveOptions::separate_input_noise.
+  double quantisation_step = 0.0;
+  ModelledReading modelled_reading = nullptr;
 };
 
 struct SolveOptions {

@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "src/ingest/whole_count_step.h"
 #include "src/ingest/coast_segmentation.h"
 #include "src/ingest/segmentation.h"
 #include "src/ingest/encoder_speed.h"
@@ -89,6 +90,8 @@ SpinDownPlan PlanSpinDown(const std::vector<const BenchLog*>& logs, std::optiona
     if (fit_position) {
       c.position_start_rad = c.position_rad.front();
       c.position_sigma_rad = position_step_rad.value_or(0.0) * kUniformSigmaPerStep;
+      // Given counts per revolution, or whole counts found in the readings (whole_count_step.h).
+      c.count_rad = position_step_rad ? *position_step_rad : WholeCountStep(c.position_rad).value_or(0.0);
     }
     double b = 0.0, cc = 0.0;
     if (!StartRatios(c.time_s, coast_speed, &b, &cc)) continue;
@@ -148,8 +151,13 @@ void AddSpinDown(SpinDownPlan* plan, Mechanics mechanics, double inertia_start_k
       const double sigma = c.position_sigma_rad > 0.0 ? c.position_sigma_rad : NoiseFromDifferences(c.position_rad);
       core::GroupSpec position_spec{c.log->path + " coast position", sigma > 0.0 ? sigma : 1.0};
       position_spec.quantised = true;  // encoder counts
+      const CoastPositionResidual residual{c.time_s, c.position_rad, mechanics};
+      if (c.count_rad > 0.0) {  // the encoder's error counted exactly (core/quantisation.h)
+        position_spec.quantisation_step = c.count_rad;
+        position_spec.modelled_reading = core::ModelledReadingOf(residual, motion, &c.position_rad);
+      }
       c.motion_group = problem.AddGroup(position_spec);
-      problem.AddResiduals(c.motion_group, motion, n, CoastPositionResidual{c.time_s, c.position_rad, mechanics});
+      problem.AddResiduals(c.motion_group, motion, n, residual);
     } else {
       const double sigma = NoiseFromDifferences(c.speed_rad_s);
       c.motion_group = problem.AddGroup({c.log->path + " coast speed", sigma > 0.0 ? sigma : 1.0});

@@ -38,6 +38,7 @@ struct CoastLog {
   double speed_start_rad_s = 0.0;     // ω₀ start
   double position_start_rad = 0.0;    // θ₀ start
   double position_sigma_rad = 0.0;    // encoder quantisation σ = q/√12
+  double count_rad = 0.0;             // the encoder's step q when positions are whole counts; 0 otherwise
   int motion_group = -1;
   int voltage_group = -1;
 };

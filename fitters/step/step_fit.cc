@@ -6,6 +6,7 @@
 
 #include "src/ingest/encoder_speed.h"
 #include "src/ingest/segmentation.h"
+#include "src/ingest/whole_count_step.h"
 #include "src/ingest/small_text_and_statistics.h"
 #include "src/model/copper_resistance.h"
 #include "src/units/constants.h"
@@ -94,6 +95,8 @@ StepTestPlan PlanStep(const std::vector<const BenchLog*>& logs, std::optional<do
       DerivedSpeed derived = SpeedFromPosition(log->time_s, log->position_rad, differentiation);
       s.speed_rad_s = std::move(derived.speed_rad_s);
       s.motion_noise = position_step_rad ? *position_step_rad * kUniformSigmaPerStep : derived.position_sigma_rad;
+      // Given counts per revolution, or whole counts found in the readings (whole_count_step.h).
+      s.count_rad = position_step_rad ? *position_step_rad : WholeCountStep(log->position_rad).value_or(0.0);
       speed_method = "encoder position fitted directly (quantisation is the noise)";
     } else {
       s.speed_rad_s = log->speed_rad_s;
@@ -212,6 +215,11 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
     core::GroupSpec motion_spec{log.path + (s.fit_position ? " step position" : " step speed"),
                                 s.motion_noise > 0.0 ? s.motion_noise : 1.0};
     motion_spec.quantised = s.fit_position;
+    if (s.fit_position && s.count_rad > 0.0) {  // the encoder's error counted exactly (core/quantisation.h)
+      motion_spec.quantisation_step = s.count_rad;
+      motion_spec.modelled_reading = core::ModelledReadingOf(s.Residual(StepChannel::kPosition), s.motion_parameters,
+                                                             &log.position_rad);
+    }
     motion_spec.input_noise = core::ProbedInputNoise(s.Residual(s.MotionChannel()), &StepResidual::voltage_V,
                                                      s.motion_parameters, n, s.voltage_noise_V);
     s.motion_group = problem.AddGroup(motion_spec);

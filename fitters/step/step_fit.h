@@ -46,6 +46,7 @@ struct StepLog {
   double current_noise_A = 0.0;
   double voltage_noise_V = 0.0;
   double motion_noise = 0.0;               // σ of speed [rad/s] or position [rad]
+  double count_rad = 0.0;                  // the encoder's step q when positions are whole counts; 0 otherwise
   bool from_rest = false;                  // ω₀ = 0 exactly
   double jump_V = 0.0;                     // a larger change between samples is a switched edge
   EquationErrorStart start;
