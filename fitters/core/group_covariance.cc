@@ -16,6 +16,7 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
   CovarianceBreakdown out;
   out.variance_parts = Eigen::MatrixXd::Zero(num_groups, p);
   out.counted_parts = Eigen::MatrixXd::Zero(num_groups, p);
+  out.counted_covariance = Eigen::MatrixXd::Zero(p, p);
   out.covariance = Eigen::MatrixXd::Zero(p, p);
   out.degrees_of_freedom = Eigen::VectorXd::Constant(p, infinity);
 
@@ -55,6 +56,7 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
     if (group.counted_moment.size() > 0) {
       const Eigen::MatrixXd counted = c * group.counted_moment * c;  // C·E[g·gᵀ]·C
       out.covariance += counted;
+      out.counted_covariance += counted;
       out.counted_parts.row(g) = counted.diagonal().transpose();
       out.variance_parts.row(g) += out.counted_parts.row(g);
     }

@@ -76,6 +76,7 @@ struct CovarianceBreakdown {
   Eigen::MatrixXd variance_parts;        // v_gj (times f_g), counted terms included, groups × p
   Eigen::MatrixXd counted_parts;         // the counted terms' share of v_gj, groups × p
   Eigen::MatrixXd covariance;            // Cov x, p × p
+  Eigen::MatrixXd counted_covariance;    // the counted terms' part of Cov x, p × p
   Eigen::VectorXd degrees_of_freedom;    // ν_j, +infinity when σ_g are known
 };
 

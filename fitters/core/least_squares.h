@@ -200,6 +200,9 @@ struct FitResult {
   // δθ = (JᵀWJ)⁻¹·JᵀW·δr, W = diag(1/σ_g²), for error propagation by the caller
   // (the input-noise terms); unlike `covariance` it carries no s_g² and no widening.
   Eigen::MatrixXd inverse_information;
+  // The part of `covariance` from errors counted exactly rather than estimated
+  // (quantised readings, GroupSpec::quantisation_step); same layout, zero when none.
+  Eigen::MatrixXd counted_covariance;
   std::vector<GroupStatistics> groups;
   // Each null direction of JᵀJ, as the names of the parameters it involves.
   std::vector<std::vector<std::string>> not_identifiable;

@@ -36,6 +36,7 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
   result.covariance = Eigen::MatrixXd::Zero(count, count);
   result.correlation = Eigen::MatrixXd::Zero(count, count);
   result.inverse_information = Eigen::MatrixXd::Zero(count, count);
+  result.counted_covariance = Eigen::MatrixXd::Zero(count, count);
   result.input_noise_correction.assign(static_cast<std::size_t>(count), 0.0);
 
   // Physical covariance of the estimated parameters: S·Cov(x)·S.
@@ -46,12 +47,14 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
   if (analysis.has_covariance) {
     const Eigen::MatrixXd physical = scales.asDiagonal() * analysis.breakdown.covariance * scales.asDiagonal();
     const Eigen::MatrixXd bread = scales.asDiagonal() * analysis.inverse_information * scales.asDiagonal();
+    const Eigen::MatrixXd counted = scales.asDiagonal() * analysis.breakdown.counted_covariance * scales.asDiagonal();
     for (Eigen::Index a = 0; a < p; ++a) {
       for (Eigen::Index b = 0; b < p; ++b) {
         const Eigen::Index i = estimated[static_cast<std::size_t>(a)];
         const Eigen::Index j = estimated[static_cast<std::size_t>(b)];
         result.covariance(i, j) = physical(a, b);
         result.inverse_information(i, j) = bread(a, b);
+        result.counted_covariance(i, j) = counted(a, b);
         const double denominator = std::sqrt(physical(a, a) * physical(b, b));
         result.correlation(i, j) = denominator > 0.0 ? physical(a, b) / denominator : 0.0;
       }

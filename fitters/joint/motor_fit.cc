@@ -303,7 +303,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (fit.usable && options.intervals.method == IntervalMethod::kProfile) {
     std::vector<std::string> names;
     for (const auto& info : kPhysical) names.push_back(info.key);
-    ApplyProfileIntervals(problem, names, input_covariance, &fit, &e.intervals.notes);
+    // The profile's cost counts each group's own noise: the stretch adds the input terms and the counted ones.
+    ApplyProfileIntervals(problem, names, input_covariance + fit.counted_covariance, &fit, &e.intervals.notes);
   }
   if (fit.usable && options.intervals.method == IntervalMethod::kBootstrap) {
     bootstrap = ApplyBootstrapIntervals(problem, options.intervals, input_covariance, &fit, &e.intervals.notes);

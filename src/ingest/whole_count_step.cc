@@ -1,5 +1,6 @@
 #include "src/ingest/whole_count_step.h"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 
@@ -13,9 +14,17 @@ std::optional<double> WholeCountStep(const std::vector<double>& position_rad) {
     if (change > 0.0 && change < step) step = change;
   }
   if (!std::isfinite(step)) return std::nullopt;
-  for (double reading : position_rad) {
-    const double counts = (reading - position_rad.front()) / step;  // (θ_k − θ_0)/q
-    if (std::fabs(counts - std::round(counts)) > kWholeCountTolerance) return std::nullopt;
+  // The smallest change carries the rounding of two written readings; refined on
+  // ever larger displacements d = n·q (q = d/n), its relative error shrinks as 1/d
+  // before the check below reaches the far end of the log.
+  std::vector<double> displacement;
+  for (double reading : position_rad) displacement.push_back(std::fabs(reading - position_rad.front()));
+  std::sort(displacement.begin(), displacement.end());
+  for (double d : displacement) {
+    const double counts = std::round(d / step);
+    if (counts < 1.0) continue;
+    if (std::fabs(d / step - counts) > kWholeCountTolerance) return std::nullopt;
+    step = d / counts;
   }
   return step;
 }

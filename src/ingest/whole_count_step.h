@@ -4,10 +4,12 @@
 // An incremental encoder logs whole counts of q = 2π/cpr (times any gearing):
 // every reading minus the first is a whole multiple of q. The smallest nonzero
 // change between consecutive samples is then q itself (a shaft that turns
-// slowly somewhere in the log passes one edge at a time). The step is taken as
-// found only when every reading lies within kWholeCountTolerance of a count on
-// that grid, so a position that is not quantised (a simulated exact angle, a
-// resolver, a filtered position) is never mistaken for counts.
+// slowly somewhere in the log passes one edge at a time), up to the rounding of
+// the written readings, which refining q on ever larger displacements removes.
+// The step is taken as found only when every reading lies within
+// kWholeCountTolerance of a count on that grid, so a position that is not
+// quantised (a simulated exact angle, a resolver, a filtered position) is not
+// mistaken for counts.
 
 #include <optional>
 #include <vector>
