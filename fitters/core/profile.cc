@@ -13,11 +13,6 @@
 namespace coilspin::core {
 namespace {
 
-// The least own variance a group keeps in the rescaled problem, as a share of its
-// measured residual variance: σ' at least 10⁻³·σ, so that the weights stay within
-// what the solver's scaling handles (common practice; far below any share that matters).
-constexpr double kProfileOwnVarianceFloor = 1e-6;
-
 bool Fail(std::string* error, const std::string& why) {
   if (error != nullptr) *error = why;
   return false;
@@ -165,10 +160,10 @@ ProfileInterval Profile(const LeastSquaresProblem& problem, const FitResult& fit
   for (int g = 0; g < problem.NumGroups(); ++g) {
     const GroupStatistics& group = fit.groups[static_cast<std::size_t>(g)];
     if (group.num_residuals == 0) continue;
-    // A group whose noise is all counted elsewhere (own s² = 0) keeps a small weight-scale
-    // rather than none: nearly exact, as its share of the Wald covariance is.
-    const double own = std::max(group.own_residual_variance, kProfileOwnVarianceFloor * group.residual_variance);
-    const double variance = fit.options.residual_variance_from_data ? own : 1.0;
+    // The measured s_g², input noise and counted errors included: the profile's shape comes
+    // from this cost, its width is matched to the full Wald variance by the caller
+    // (ProfileInterval::rescaled_std_error).
+    const double variance = fit.options.residual_variance_from_data ? group.residual_variance : 1.0;
     base->SetGroupSigma(g, group.sigma * std::sqrt(variance * group.variance_inflation));
   }
   SolveOptions solve = fit.options;
@@ -182,6 +177,7 @@ ProfileInterval Profile(const LeastSquaresProblem& problem, const FitResult& fit
     out.message = "the rescaled problem did not converge at its minimum: " + minimum.message;
     return out;
   }
+  out.rescaled_std_error = minimum.parameters[static_cast<std::size_t>(j)].std_error;
   const double minimum_cost = 2.0 * minimum.final_cost;
   const std::vector<double> start = base->Values();
   const double centre = start[static_cast<std::size_t>(j)];

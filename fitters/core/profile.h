@@ -7,8 +7,9 @@
 // (Bates & Watts, Nonlinear Regression Analysis and Its Applications, 1988,
 // §6.1, the likelihood-ratio / profile-t interval — from memory), with ν_j the
 // fit's degrees of freedom for θ_j. S is the weighted sum of squares with each
-// group's σ_g replaced by σ'_g = σ_g·√(s_g²·f_g): s_g² the residual variance the
-// fit used (1 with known σ_g) and f_g its autocorrelation inflation. Then
+// group's σ_g replaced by σ'_g = σ_g·√(s_g²·f_g): s_g² the group's measured
+// residual variance (1 with known σ_g; input noise and counted errors included,
+// least_squares.h) and f_g its autocorrelation inflation. Then
 // every group has unit residual variance at the minimum; after group-σ
 // re-estimation s_g ≈ 1 already, and for one group the rule is the classical
 // (S_p − S_min)/s² ≤ t², s² = RSS/(n − p) of the full fit. For a model linear
@@ -76,6 +77,10 @@ struct ProfileInterval {
   ProfileSide low;
   ProfileSide high;
   int solves = 0;          // re-solves used, both sides
+  // se_j of the rescaled problem (Wald, σ'_g known): the scale of the profile's own
+  // width. A caller whose covariance counts more than the groups' noise (input
+  // noise, counted errors) stretches the sides by se_j(full)/rescaled_std_error.
+  double rescaled_std_error = 0.0;
 };
 
 // `fit` must be problem.Solve's usable result; `problem` is only cloned.

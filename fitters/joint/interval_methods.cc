@@ -8,7 +8,7 @@
 namespace coilspin::joint {
 namespace {
 
-// k = √(1 + v_in/v): the stretch of an interval whose own variance v leaves out the input term v_in.
+// k = √(1 + v_in/v): the stretch of an interval whose own variance v leaves out an added term v_in.
 double InputStretch(double input_variance, double own_variance) {
   return own_variance > 0.0 ? std::sqrt(1.0 + input_variance / own_variance) : 1.0;
 }
@@ -31,8 +31,7 @@ std::optional<IntervalMethod> IntervalMethodFromString(const std::string& text) 
 }
 
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
-                           const Eigen::MatrixXd& input_covariance, core::FitResult* fit,
-                           std::vector<std::string>* notes) {
+                           core::FitResult* fit, std::vector<std::string>* notes) {
   core::ProfileOptions options;
   options.confidence = fit->confidence;
   for (const auto& name : names) {
@@ -44,9 +43,10 @@ void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::
       notes->push_back(name + ": no profile (" + profile.message + "); Wald interval kept");
       continue;
     }
-    // The Wald sides kept already include the input term; the profile's own sides do not.
-    const double input = input_covariance(index, index);
-    const double k = InputStretch(input, p.std_error * p.std_error - input);  // vs the output-only Wald variance
+    // The profile's own width follows the rescaled problem's Wald se; the fit's se also counts
+    // the input noise and the counted errors: k = se(full)/se(rescaled), 1 for a linear model
+    // with nothing counted apart.
+    const double k = profile.rescaled_std_error > 0.0 ? p.std_error / profile.rescaled_std_error : 1.0;
     // The profile is of the plain least-squares cost, centred on θ̂ = θ_c − (θ_c − θ̂): its
     // sides are kept as distances from θ̂ and laid around the corrected estimate θ_c.
     const double least_squares = p.value - fit->input_noise_correction[static_cast<std::size_t>(index)];
@@ -59,7 +59,7 @@ void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::
 
 std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
                                                              const IntervalOptions& options,
-                                                             const Eigen::MatrixXd& input_covariance,
+                                                             const Eigen::MatrixXd& added_covariance,
                                                              core::FitResult* fit, std::vector<std::string>* notes) {
   core::BootstrapOptions b;
   b.replicates = options.replicates;
@@ -82,13 +82,13 @@ std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSq
     const Eigen::VectorXd d = Eigen::Map<const Eigen::VectorXd>(r.data(), p) - mean;
     covariance += d * d.transpose() / (n - 1.0);
   }
-  covariance += input_covariance;
+  covariance += added_covariance;
   core::SetCovariance(covariance, fit);
   for (std::size_t j = 0; j < fit->parameters.size(); ++j) {
     if (fit->parameters[j].fixed) continue;
     const core::ParameterEstimate& q = result.parameters[j];
     const auto at = static_cast<Eigen::Index>(j);
-    const double k = InputStretch(input_covariance(at, at), q.std_error * q.std_error);
+    const double k = InputStretch(added_covariance(at, at), q.std_error * q.std_error);
     fit->parameters[j].std_error = std::sqrt(covariance(at, at));
     fit->parameters[j].ci_low = q.value - k * (q.value - q.ci_low);
     fit->parameters[j].ci_high = q.value + k * (q.ci_high - q.value);

@@ -40,17 +40,20 @@ struct IntervalOptions {
   std::function<void(int done, int total, double elapsed_seconds)> progress;  // bootstrap only
 };
 
-// Profile intervals for `names` replace the Wald ones in *fit; notes say where a side was not found.
-// input_covariance: the input-noise part of fit->covariance (same layout; zero when none).
+// Profile intervals for `names` replace the Wald ones in *fit (whose covariance
+// includes every added term: input noise, counted errors), their sides stretched
+// by se(fit)/se(rescaled problem); notes say where a side was not found.
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
-                           const Eigen::MatrixXd& input_covariance, core::FitResult* fit,
-                           std::vector<std::string>* notes);
+                           core::FitResult* fit, std::vector<std::string>* notes);
 
 // Bootstrap intervals replace the Wald ones (and the replicates' covariance the
-// fit's) in *fit. Empty, with a note, when the bootstrap is not usable.
+// fit's) in *fit. added_covariance: the terms resampling cannot reproduce (the
+// input-noise terms, counted quantisation errors; same layout as fit->covariance),
+// added to the replicates' covariance and stretching the percentile sides by
+// √(1 + added/replicate variance). Empty, with a note, when the bootstrap is not usable.
 std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
                                                              const IntervalOptions& options,
-                                                             const Eigen::MatrixXd& input_covariance,
+                                                             const Eigen::MatrixXd& added_covariance,
                                                              core::FitResult* fit, std::vector<std::string>* notes);
 
 }  // namespace coilspin::joint

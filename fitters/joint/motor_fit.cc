@@ -303,11 +303,13 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (fit.usable && options.intervals.method == IntervalMethod::kProfile) {
     std::vector<std::string> names;
     for (const auto& info : kPhysical) names.push_back(info.key);
-    // The profile's cost counts each group's own noise: the stretch adds the input terms and the counted ones.
-    ApplyProfileIntervals(problem, names, input_covariance + fit.counted_covariance, &fit, &e.intervals.notes);
+    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes);
   }
   if (fit.usable && options.intervals.method == IntervalMethod::kBootstrap) {
-    bootstrap = ApplyBootstrapIntervals(problem, options.intervals, input_covariance, &fit, &e.intervals.notes);
+    // Resampled residuals cannot redraw an encoder's phase (one per log), nor the logged voltage's noise that
+    // drives the models: both terms are added to the replicates' covariance (core/quantisation.h, input_noise.h).
+    bootstrap = ApplyBootstrapIntervals(problem, options.intervals, input_covariance + fit.counted_covariance, &fit,
+                                        &e.intervals.notes);
     e.intervals.seed = options.intervals.seed;
     if (bootstrap) {
       e.intervals.replicates = static_cast<int>(bootstrap->replicates.size());
