@@ -1,6 +1,8 @@
 #include "src/cli/simulate_command.h"
 
 #include <cmath>
+#include <cstdlib>
+#include <string>
 #include <limits>
 #include <sstream>
 #include <stdexcept>
@@ -101,6 +103,8 @@ void RejectInapplicable(const SimulateArguments& a, Kind kind) {
       {"--no-coast-voltage", a.no_coast_voltage, spin_down, "applies to spin-down only"},
       {"--no-coast-current", a.no_coast_current, spin_down, "applies to spin-down only"},
       {"--cpr", a.counts_per_rev.has_value(), free_shaft, "applies to no-load, spin-down and step only"},
+      {"--encoder-start-phase", a.encoder_start_phase.has_value(), free_shaft && a.counts_per_rev.has_value(),
+       "needs an encoder (--cpr)"},
       {"--log-speed-and-position", a.log_speed_and_position, free_shaft,
        "applies to no-load, spin-down and step only"},
       {"--gear-ratio", a.gear_ratio.has_value(), free_shaft, "applies to no-load, spin-down and step only"},
@@ -132,6 +136,7 @@ model::MotorParameters MotorFor(const SimulateArguments& a, Kind kind) {
 model::BenchConditions BenchFor(const SimulateArguments& a) {
   model::BenchConditions bench = a.bench;
   bench.encoder_counts_per_rev = a.counts_per_rev.value_or(0);
+  bench.encoder_start_phase = a.encoder_start_phase.value_or(0.0);
   bench.gear_ratio = a.gear_ratio.value_or(bench.gear_ratio);
   bench.speed_noise_sigma_rad_s = a.speed_noise_sigma_rad_s.value_or(0.0);
   bench.torque_noise_sigma_N_m = a.torque_noise_sigma_N_m.value_or(0.0);
@@ -353,6 +358,15 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_option("--cpr", a->counts_per_rev,
                 "An encoder of this many counts per revolution: log position [counts] instead of speed")
       ->check(CLI::Range(1, std::numeric_limits<int>::max()));
+  c->add_option("--encoder-start-phase", a->encoder_start_phase,
+                "Where the shaft rests within a count when the log starts, as a fraction of a count "
+                "(default 0: exactly on an edge; a real shaft rests anywhere)")
+      ->check(CLI::Validator(
+          [](std::string& text) {
+            const double phase = std::strtod(text.c_str(), nullptr);
+            return phase >= 0.0 && phase < 1.0 ? std::string() : "must lie in [0, 1) of a count, got " + text;
+          },
+          "[0, 1)"));
   c->add_flag("--log-speed-and-position", a->log_speed_and_position, "Log both speed and position");
   c->add_option("--gear-ratio", a->gear_ratio,
                 "Motor turns per output turn: speed and position read at the gearbox output")

@@ -43,6 +43,7 @@ struct SimulateArguments {
   bool no_coast_voltage = false;             // spin-down: leave out the voltage column
   bool no_coast_current = false;             // spin-down: leave out the current column
   std::optional<int> counts_per_rev;         // an encoder: log position in counts instead of speed
+  std::optional<double> encoder_start_phase;  // where the shaft rests within a count at the start, [0, 1)
   bool log_speed_and_position = false;
   std::optional<double> gear_ratio;
   std::optional<double> speed_noise_sigma_rad_s;

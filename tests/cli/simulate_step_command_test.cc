@@ -100,6 +100,34 @@ TEST_F(SimulateStepCommand, EncoderLogsCountsInsteadOfSpeed) {
   EXPECT_EQ(csv.rows.back()[3], std::floor(csv.rows.back()[3]));  // whole counts
 }
 
+TEST_F(SimulateStepCommand, EncoderStartPhaseBringsTheFirstEdgeEarlier) {
+  // src/model/shaft_channels.h: n = floor(θ·cpr/2π + φ); zeroed at the start either way, and the
+  // shaft, turning the same path, passes its first edge after 1 − φ of a count instead of a whole one
+  const std::string common = "simulate step --step 0:6 --after 0.05 --cpr 500 " + kMotor;
+  ASSERT_EQ(RunCoilspin(common + " --out edge.csv", dir()).status, 0);
+  const RunResult shifted = RunCoilspin(common + " --out shifted.csv --encoder-start-phase 0.9", dir());
+  ASSERT_EQ(shifted.status, 0) << shifted.err;
+  const Csv edge = ReadCsv(dir() / "edge.csv");
+  const Csv moved = ReadCsv(dir() / "shifted.csv");
+  ASSERT_EQ(edge.rows.size(), moved.rows.size());
+  EXPECT_EQ(moved.rows.front()[3], 0.0);
+  const auto first_count = [](const Csv& csv) {
+    for (std::size_t k = 0; k < csv.rows.size(); ++k)
+      if (csv.rows[k][3] != 0.0) return k;
+    return csv.rows.size();
+  };
+  EXPECT_LT(first_count(moved), first_count(edge));
+  // Everywhere the shifted reading is the edge reading or one count more.
+  for (std::size_t k = 0; k < edge.rows.size(); ++k) {
+    const double more = moved.rows[k][3] - edge.rows[k][3];
+    EXPECT_TRUE(more == 0.0 || more == 1.0) << "row " << k << ": " << more;
+  }
+  const RunResult outside = RunCoilspin(common + " --out never.csv --encoder-start-phase 1", dir());
+  EXPECT_EQ(outside.status, 2);
+  EXPECT_NE(outside.err.find("must lie in [0, 1) of a count"), std::string::npos) << outside.err;
+  EXPECT_FALSE(std::filesystem::exists(dir() / "never.csv"));
+}
+
 TEST_F(SimulateStepCommand, BetweenTwoLevelsStartsAfterTheUnloggedSettle) {
   // src/model/simulate_step.h: t counts from the unlogged start; the step comes `before` later
   const RunResult r = RunCoilspin(
@@ -168,6 +196,7 @@ INSTANTIATE_TEST_SUITE_P(
         Inapplicable{"temperature_capture", "locked-rotor --step 0:4 --log-temperature",
                      "--log-temperature applies to locked-rotor plateaus, no-load and step"},
         Inapplicable{"cpr_locked", "locked-rotor --levels 2,4 --cpr 500", "applies to no-load, spin-down and step"},
+        Inapplicable{"phase_without_encoder", "step --step 0:6 --encoder-start-phase 0.5", "needs an encoder (--cpr)"},
         Inapplicable{"no_levels", "step --after 0.01", "step needs --step FROM:TO"},
         Inapplicable{"bad_levels", "step --step 0:6V", "--step expects FROM:TO volts"},
         Inapplicable{"unknown_kind", "steps --step 0:6", "locked-rotor, no-load, spin-down or step"}),
