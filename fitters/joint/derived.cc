@@ -104,9 +104,18 @@ std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula
   };
   const core::ParameterEstimate b =
       core::BootstrapQuantity(*replicates.result, formula.key, replicates.full_fit_values, quantity, e.confidence);
-  q->std_error = b.std_error;
-  q->ci_low = b.ci_low;
-  q->ci_high = b.ci_high;
+  double added = 0.0;  // v_added = ∇gᵀ·added·∇g
+  if (!replicates.added_covariance.empty()) {
+    MotorEstimate only_added = e;
+    only_added.covariance = replicates.added_covariance;
+    const double se = Propagate(only_added, formula.value, formula.uses).std_error;
+    added = se * se;
+  }
+  const double replicate_variance = b.std_error * b.std_error;
+  const double k = replicate_variance > 0.0 ? std::sqrt(1.0 + added / replicate_variance) : 1.0;
+  q->std_error = std::sqrt(replicate_variance + added);
+  q->ci_low = b.value - k * (b.value - b.ci_low);
+  q->ci_high = b.value + k * (b.ci_high - b.value);
   q->degrees_of_freedom = b.degrees_of_freedom;  // NaN: not a t interval
   return q;
 }

@@ -28,6 +28,11 @@ struct Replicates {
   const core::BootstrapResult* result = nullptr;
   std::vector<double> full_fit_values;  // the fit's values of every problem parameter
   std::vector<int> theta_index;         // problem index of correlation_names[k]
+  // The covariance terms resampling cannot reproduce (input noise, counted
+  // quantisation), in correlation_names order; empty when none. A derived
+  // quantity's percentile sides are stretched by √(1 + v_added/v_replicates),
+  // v_added = ∇gᵀ·added·∇g, as the parameters' are (interval_methods.h).
+  std::vector<std::vector<double>> added_covariance;
 };
 
 // The same quantity from bootstrap replicates (core::BootstrapQuantity): value at

@@ -411,6 +411,11 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     replicates.result = &*bootstrap;
     for (const auto& p : fit.parameters) replicates.full_fit_values.push_back(p.value);
     for (const auto& name : e.correlation_names) replicates.theta_index.push_back(parameters.Index(name));
+    const Eigen::MatrixXd added = input_covariance + fit.counted_covariance;  // as ApplyBootstrapIntervals adds
+    for (int a : replicates.theta_index) {
+      replicates.added_covariance.emplace_back();
+      for (int b : replicates.theta_index) replicates.added_covariance.back().push_back(added(a, b));
+    }
   }
   const auto derive = [&](const model::DerivedFormula& f, double voltage_V) {
     return DeriveFromReplicates(f, e, voltage_V, replicates);  // the delta method when there are none
