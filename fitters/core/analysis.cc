@@ -4,6 +4,7 @@
 
 #include <cmath>
 
+#include "fitters/core/counted_noise.h"
 #include "fitters/core/least_squares.h"
 #include "fitters/core/null_space.h"
 #include "fitters/core/problem_internals.h"
@@ -124,33 +125,16 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     term.jacobian = analysis.groups[g].jacobian;
     term.sigma_known = groups_[g]->spec.sigma_known;
     const GroupSpec& spec = groups_[g]->spec;
-    const double sigma = groups_[g]->sigma;
-    const int max_lag = spec.quantised ? kMaxExplainedLag : 1;
-    LaggedSums explained;  // a_m/σ_g² (+ b_m/σ_g²), in the units of the weighted residuals
-    if (options.separate_input_noise && spec.input_noise && term.num_residuals > 0) {
-      explained = spec.input_noise(Values(), max_lag);
-      for (double& sum : explained) sum /= sigma * sigma;
+    CountedNoise counted;  // what other terms count: left out of s_g² and the widening (counted_noise.h)
+    if (options.separate_input_noise) {
+      counted = CountedNoiseOf(spec, groups_[g]->sigma, Values(), term.jacobian,
+                               spec.quantised ? kMaxExplainedLag : 1);
+      if (!counted.explained.empty()) term.explained_sum_squares = counted.explained.front();
+      term.counted_moment = counted.moment;
     }
-    if (options.separate_input_noise && spec.quantisation_step > 0.0 && spec.modelled_reading &&
-        term.num_residuals > 0) {
-      std::vector<Eigen::VectorXd> errors = QuantisationErrors(spec.modelled_reading(Values()), spec.quantisation_step);
-      if (!errors.empty() && errors.front().size() == term.num_residuals) {
-        Eigen::MatrixXd moment = Eigen::MatrixXd::Zero(p, p);
-        for (Eigen::VectorXd& e : errors) {
-          e /= sigma;  // z = e/σ_g
-          const Eigen::VectorXd gradient = term.jacobian.transpose() * e;  // g = J_gᵀ·z
-          moment += gradient * gradient.transpose();
-        }
-        term.counted_moment = moment / static_cast<double>(errors.size());
-        const LaggedSums quantisation = MeanLaggedSums(errors, max_lag);
-        if (explained.size() < quantisation.size()) explained.resize(quantisation.size(), 0.0);
-        for (std::size_t m = 0; m < quantisation.size(); ++m) explained[m] += quantisation[m];
-      }
-    }
-    if (!explained.empty()) term.explained_sum_squares = explained.front();
     if (options.widen_for_autocorrelation) {
       const AutocorrelationWidening widening =
-          DecideWidening(analysis.groups[g].weighted_residuals, explained, spec.quantised);
+          DecideWidening(analysis.groups[g].weighted_residuals, counted.explained, spec.quantised);
       term.variance_inflation = widening.inflation;
       analysis.widening.push_back(widening);
     }
