@@ -118,6 +118,7 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
   }
 
   std::vector<GroupTerms> terms;
+  const std::vector<double> values = Values();
   for (std::size_t g = 0; g < groups_.size(); ++g) {
     GroupTerms term;
     term.num_residuals = groups_[g]->num_residuals;
@@ -127,14 +128,22 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     const GroupSpec& spec = groups_[g]->spec;
     CountedNoise counted;  // what other terms count: left out of s_g² and the widening (counted_noise.h)
     if (options.separate_input_noise) {
-      counted = CountedNoiseOf(spec, groups_[g]->sigma, Values(), term.jacobian,
-                               spec.quantised ? kMaxExplainedLag : 1);
+      counted = CountedNoiseOf(spec, groups_[g]->sigma, values, term.jacobian, 1);
       if (!counted.explained.empty()) term.explained_sum_squares = counted.explained.front();
       term.counted_moment = counted.moment;
     }
     if (options.widen_for_autocorrelation) {
-      const AutocorrelationWidening widening =
-          DecideWidening(analysis.groups[g].weighted_residuals, counted.explained, spec.quantised);
+      const Eigen::VectorXd& z = analysis.groups[g].weighted_residuals;
+      // Decided on lag 1; only a widened quantised group sums further lags (τ_int), so
+      // only then are the counted terms' lagged sums needed beyond lag 1.
+      AutocorrelationWidening widening = DecideWidening(z, counted.explained, false);
+      if (widening.widened && spec.quantised) {
+        const LaggedSums longer =
+            options.separate_input_noise
+                ? CountedNoiseOf(spec, groups_[g]->sigma, values, term.jacobian, kMaxExplainedLag).explained
+                : LaggedSums();
+        widening = DecideWidening(z, longer, true);
+      }
       term.variance_inflation = widening.inflation;
       analysis.widening.push_back(widening);
     }

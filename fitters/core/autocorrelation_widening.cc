@@ -43,10 +43,6 @@ double IntegratedAutocorrelationTime(const Eigen::VectorXd& residuals) {
       [&](Eigen::Index lag) { return centred.head(n - lag).dot(centred.tail(n - lag)) / variance; }, n);  // ρ̂_k
 }
 
-AutocorrelationWidening DecideWidening(const Eigen::VectorXd& residuals) {
-  return DecideWidening(residuals, {}, true);
-}
-
 AutocorrelationWidening DecideWidening(const Eigen::VectorXd& residuals, const LaggedSums& explained,
                                        bool quantised) {
   const Eigen::Index n = residuals.size();

@@ -101,10 +101,6 @@ AutocorrelationWidening DecideWidening(int num_residuals, double lag1);
 // τ_int of a series by Sokal's window (≥ 1).
 double IntegratedAutocorrelationTime(const Eigen::VectorXd& residuals);
 
-// The decision for one group's residuals: DecideWidening on their ρ̂₁, then, when
-// widened, f = max(AR(1) factor, τ_int).
-AutocorrelationWidening DecideWidening(const Eigen::VectorXd& residuals);
-
 // The decision for one group's (weighted) residuals z, less the part `explained`
 // by input noise (a_0 … a_M in the units of z², empty for none): DecideWidening
 // on the remaining ρ_1, then, for a quantised reading and when widened,

@@ -12,18 +12,21 @@ CountedNoise CountedNoiseOf(const GroupSpec& spec, double sigma, const std::vect
     for (double& sum : out.explained) sum /= sigma * sigma;  // a_m/σ_g²
   }
   if (spec.quantisation_step > 0.0 && spec.modelled_reading) {
-    std::vector<Eigen::VectorXd> errors = QuantisationErrors(spec.modelled_reading(values), spec.quantisation_step);
-    if (errors.empty() || errors.front().size() != n) return out;
-    out.moment = Eigen::MatrixXd::Zero(jacobian.cols(), jacobian.cols());
-    for (Eigen::VectorXd& e : errors) {
-      e /= sigma;                                                  // z = e/σ_g
-      const Eigen::VectorXd gradient = jacobian.transpose() * e;  // g = J_gᵀ·z
-      out.moment += gradient * gradient.transpose();
-    }
-    out.moment /= static_cast<double>(errors.size());
-    const LaggedSums quantisation = MeanLaggedSums(errors, max_lag);  // b_m/σ_g²
+    const std::vector<double> modelled = spec.modelled_reading(values);
+    if (static_cast<Eigen::Index>(modelled.size()) != n) return out;
+    Eigen::MatrixXd moment = Eigen::MatrixXd::Zero(jacobian.cols(), jacobian.cols());
+    LaggedSums quantisation;
+    const int phases = VisitQuantisationErrors(modelled, spec.quantisation_step, [&](const Eigen::VectorXd& error) {
+      const Eigen::VectorXd z = error / sigma;                     // z = e/σ_g
+      const Eigen::VectorXd gradient = jacobian.transpose() * z;  // g = J_gᵀ·z
+      moment += gradient * gradient.transpose();
+      AddLaggedSums(z, max_lag, &quantisation);
+    });
+    if (phases == 0) return out;
+    out.moment = moment / static_cast<double>(phases);
     if (out.explained.size() < quantisation.size()) out.explained.resize(quantisation.size(), 0.0);
-    for (std::size_t m = 0; m < quantisation.size(); ++m) out.explained[m] += quantisation[m];
+    for (std::size_t m = 0; m < quantisation.size(); ++m)
+      out.explained[m] += quantisation[m] / static_cast<double>(phases);  // b_m/σ_g²
   }
   return out;
 }

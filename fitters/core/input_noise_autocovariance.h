@@ -61,9 +61,10 @@ using InputNoiseModel = std::function<LaggedSums(const std::vector<double>& valu
 using ResidualsForInput =
     std::function<bool(const std::vector<double>& input, std::vector<double>* residuals)>;
 
-// The average over realisations u of Σ_k u_k·u_{k+m}, m = 0 … max_lag (fewer
-// when the realisations are shorter). Empty for no realisations.
-LaggedSums MeanLaggedSums(const std::vector<Eigen::VectorXd>& realisations, int max_lag);
+// Adds Σ_k u_k·u_{k+m}, m = 0 … max_lag (fewer when u is shorter), of one
+// realisation u to *sums, sizing it on the first call: realisations are summed as
+// they are made, never stored (K of them would hold K·n values).
+void AddLaggedSums(const Eigen::VectorXd& u, int max_lag, LaggedSums* sums);
 
 // a_0 … a_max_lag by random probes of white noise of σ = sigma_input on `input`.
 // Empty when sigma_input is not positive or an evaluation fails.

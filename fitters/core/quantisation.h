@@ -47,9 +47,12 @@ inline constexpr int kQuantisationPhases = 64;
 // the model cannot be evaluated.
 using ModelledReading = std::function<std::vector<double>(const std::vector<double>& values)>;
 
-// e(φ_j) for j = 0 … K−1 of a reading quantised in steps of `step`, along the
-// modelled path `modelled` (the reading's own unit). Empty when step ≤ 0.
-std::vector<Eigen::VectorXd> QuantisationErrors(const std::vector<double>& modelled, double step);
+// Calls `visit` with e(φ_j) for j = 0 … K−1, in order, of a reading quantised in
+// steps of `step` along the modelled path `modelled` (the reading's own unit), one
+// vector reused (K of them would hold K·n values); returns how many were visited:
+// 0 when step ≤ 0 or the path is empty.
+int VisitQuantisationErrors(const std::vector<double>& modelled, double step,
+                            const std::function<void(const Eigen::VectorXd& error)>& visit);
 
 // The ModelledReading of a residual functor r = y − ŷ (the form AddResiduals
 // takes) over the logged reading y: ŷ = y − r at the listed parameters.

@@ -37,8 +37,9 @@ struct Propagated {
   double value, std_error, dof;
 };
 
+// `covariance`: e.covariance, or another matrix in its layout (a part of it).
 Propagated Propagate(const MotorEstimate& e, const std::function<double(const model::ParameterValues&)>& g,
-                     const std::vector<std::string>& uses) {
+                     const std::vector<std::string>& uses, const std::vector<std::vector<double>>& covariance) {
   const std::vector<double> theta = Theta(e);
   const std::size_t n = theta.size();
   std::vector<double> gradient(n, 0.0);
@@ -52,7 +53,7 @@ Propagated Propagate(const MotorEstimate& e, const std::function<double(const mo
   }
   double variance = 0.0;  // ∇gᵀ·Cov·∇g
   for (std::size_t a = 0; a < n; ++a)
-    for (std::size_t b = 0; b < n; ++b) variance += gradient[a] * e.covariance[a][b] * gradient[b];
+    for (std::size_t b = 0; b < n; ++b) variance += gradient[a] * covariance[a][b] * gradient[b];
   double dof = std::numeric_limits<double>::infinity();
   for (std::string key : uses) {
     if (key == "torque_constant" && KtTiedToKe(e)) key = "back_emf_constant";
@@ -76,7 +77,7 @@ std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& 
     for (const auto& t : parameter->tests)
       if (std::find(tests.begin(), tests.end(), t) == tests.end()) tests.push_back(t);
   }
-  const Propagated p = Propagate(e, formula.value, formula.uses);
+  const Propagated p = Propagate(e, formula.value, formula.uses, e.covariance);
   QuantityEstimate q;
   q.key = formula.key;
   q.symbol = formula.symbol;
@@ -106,9 +107,7 @@ std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula
       core::BootstrapQuantity(*replicates.result, formula.key, replicates.full_fit_values, quantity, e.confidence);
   double added = 0.0;  // v_added = ∇gᵀ·added·∇g
   if (!replicates.added_covariance.empty()) {
-    MotorEstimate only_added = e;
-    only_added.covariance = replicates.added_covariance;
-    const double se = Propagate(only_added, formula.value, formula.uses).std_error;
+    const double se = Propagate(e, formula.value, formula.uses, replicates.added_covariance).std_error;
     added = se * se;
   }
   const double replicate_variance = b.std_error * b.std_error;
@@ -133,7 +132,8 @@ std::optional<TorqueSpeedLine> TorqueSpeed(const MotorEstimate& e, double voltag
   for (int k = 0; k < points; ++k) {
     const double speed = top_speed * k / (points - 1);
     const Propagated p = Propagate(
-        e, [&](const model::ParameterValues& v) { return model::ShaftTorque(v, voltage_V, speed); }, uses);
+        e, [&](const model::ParameterValues& v) { return model::ShaftTorque(v, voltage_V, speed); }, uses,
+        e.covariance);
     const double t = core::StudentTQuantile(0.5 * (1.0 + e.confidence), p.dof);
     line.points.push_back({speed, p.value, p.value - t * p.std_error, p.value + t * p.std_error});
   }

@@ -47,7 +47,7 @@ TEST(AutocorrelationWidening, IntegratedTimeCatchesNoiseThatDecaysSlowerThanAr1)
   const Eigen::VectorXd x = WhitePlusSlowDrift(kSamples, kShare, kPhi, 17);
   // Sokal's estimate: relative error about √(2(2M+1)/n)·τ (from memory) ≈ 5 % here; 15 % bound.
   EXPECT_NEAR(IntegratedAutocorrelationTime(x) / tau, 1.0, 0.15);
-  const AutocorrelationWidening w = DecideWidening(x);
+  const AutocorrelationWidening w = DecideWidening(x, {}, true);  // a quantised group, nothing explained
   ASSERT_TRUE(w.widened);  // ρ̂₁ ≈ aφ = 0.095 is above the 0.05 floor
   EXPECT_NEAR(w.inflation / tau, 1.0, 0.15);
   const double ar1 = (1.0 + kShare * kPhi) / (1.0 - kShare * kPhi);

@@ -24,7 +24,9 @@ TEST(Quantisation, ErrorOverThePhaseGridIsUnbiasedWithTheBernoulliSpread) {
   constexpr double kStep = 0.25;
   std::vector<double> path;
   for (int k = 0; k < 300; ++k) path.push_back(0.1 + 0.0137 * k + 0.0004 * k * k);  // a speeding path, invented
-  const std::vector<Eigen::VectorXd> errors = QuantisationErrors(path, kStep);
+  std::vector<Eigen::VectorXd> errors;
+  const int visited = VisitQuantisationErrors(path, kStep, [&](const Eigen::VectorXd& e) { errors.push_back(e); });
+  ASSERT_EQ(visited, kQuantisationPhases);
   ASSERT_EQ(errors.size(), static_cast<std::size_t>(kQuantisationPhases));
   for (Eigen::Index k = 0; k < static_cast<Eigen::Index>(path.size()); ++k) {
     double mean = 0.0, square = 0.0;
@@ -38,7 +40,7 @@ TEST(Quantisation, ErrorOverThePhaseGridIsUnbiasedWithTheBernoulliSpread) {
     EXPECT_NEAR(mean, 0.0, kStep / kQuantisationPhases) << k;
     EXPECT_NEAR(square - mean * mean, kStep * kStep * f * (1.0 - f), kStep * kStep / kQuantisationPhases) << k;
   }
-  EXPECT_TRUE(QuantisationErrors(path, 0.0).empty());
+  EXPECT_EQ(VisitQuantisationErrors(path, 0.0, [](const Eigen::VectorXd&) {}), 0);
 }
 
 // θ_k = θ0 + ω·t_k read by an encoder of step q with a random phase: the fitted
