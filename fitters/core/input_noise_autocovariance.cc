@@ -5,13 +5,6 @@
 
 namespace coilspin::core {
 
-void AddLaggedSums(const Eigen::VectorXd& u, int max_lag, LaggedSums* sums) {
-  const Eigen::Index n = u.size();
-  const Eigen::Index lags = std::min<Eigen::Index>(max_lag + 1, n);
-  if (sums->empty()) sums->assign(static_cast<std::size_t>(std::max<Eigen::Index>(lags, 0)), 0.0);
-  for (Eigen::Index m = 0; m < lags; ++m) (*sums)[static_cast<std::size_t>(m)] += u.head(n - m).dot(u.tail(n - m));  // Σ_k u_k·u_{k+m}
-}
-
 LaggedSums ProbeInputNoise(const ResidualsForInput& residuals, const std::vector<double>& input,
                            double sigma_input, int max_lag) {
   if (!(sigma_input > 0.0) || max_lag < 0) return {};

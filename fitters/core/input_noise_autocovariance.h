@@ -37,6 +37,8 @@
 #include <functional>
 #include <vector>
 
+#include "fitters/core/lagged_sums.h"
+
 namespace coilspin::core {
 
 // Probes per evaluation (K): the estimate of a_m is an average over n samples
@@ -47,10 +49,6 @@ inline constexpr int kInputNoiseAutocovarianceProbes = 16;
 // The probes' generator seed: fixed, so the same fit repeats exactly (style.md habit 13).
 inline constexpr std::uint64_t kInputNoiseAutocovarianceSeed = 20261203;
 
-// a_0 … a_M, in the squared unit of the group's (unweighted) residuals; empty
-// when there is nothing to explain.
-using LaggedSums = std::vector<double>;
-
 // The model of a group's input noise, given to GroupSpec::input_noise: the
 // problem's current parameter values (physical, every parameter in the order
 // added) and the largest lag M wanted, to a_0 … a_M.
@@ -60,11 +58,6 @@ using InputNoiseModel = std::function<LaggedSums(const std::vector<double>& valu
 // when the model cannot be evaluated.
 using ResidualsForInput =
     std::function<bool(const std::vector<double>& input, std::vector<double>* residuals)>;
-
-// Adds Σ_k u_k·u_{k+m}, m = 0 … max_lag (fewer when u is shorter), of one
-// realisation u to *sums, sizing it on the first call: realisations are summed as
-// they are made, never stored (K of them would hold K·n values).
-void AddLaggedSums(const Eigen::VectorXd& u, int max_lag, LaggedSums* sums);
 
 // a_0 … a_max_lag by random probes of white noise of σ = sigma_input on `input`.
 // Empty when sigma_input is not positive or an evaluation fails.

@@ -100,6 +100,8 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
       statistics.widened_for_autocorrelation = analysis.widening[g].widened;
       statistics.variance_inflation = analysis.widening[g].inflation;
       statistics.effective_num_residuals = analysis.widening[g].effective_num_residuals;
+      statistics.integrated_autocorrelation_time = analysis.widening[g].integrated_time;
+      statistics.autocorrelation_lags = analysis.widening[g].lags;
     }
     if (analysis.evaluated) {
       const Eigen::VectorXd unweighted = analysis.groups[g].weighted_residuals * group.sigma;

@@ -150,7 +150,6 @@ void AddSpinDown(SpinDownPlan* plan, Mechanics mechanics, double inertia_start_k
       motion.insert(motion.begin(), theta0);
       const double sigma = c.position_sigma_rad > 0.0 ? c.position_sigma_rad : NoiseFromDifferences(c.position_rad);
       core::GroupSpec position_spec{c.log->path + " coast position", sigma > 0.0 ? sigma : 1.0};
-      position_spec.quantised = true;  // encoder counts
       const CoastPositionResidual residual{c.time_s, c.position_rad, mechanics};
       if (c.count_rad > 0.0) {  // the encoder's error counted exactly (core/quantisation.h)
         position_spec.quantisation_step = c.count_rad;

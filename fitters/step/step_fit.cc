@@ -214,7 +214,6 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
     }
     core::GroupSpec motion_spec{log.path + (s.fit_position ? " step position" : " step speed"),
                                 s.motion_noise > 0.0 ? s.motion_noise : 1.0};
-    motion_spec.quantised = s.fit_position;
     if (s.fit_position && s.count_rad > 0.0) {  // the encoder's error counted exactly (core/quantisation.h)
       motion_spec.quantisation_step = s.count_rad;
       motion_spec.modelled_reading = core::ModelledReadingOf(s.Residual(StepChannel::kPosition), s.motion_parameters,
