@@ -251,6 +251,13 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                              sd.measures_back_emf ? std::optional<double>(sd.back_emf_start) : std::nullopt,
                              NoLoadPlateauOptions(lr_options.plateaus), &e);
 
+  // Readings each log had set aside at ingest, on its test's summary.
+  for (auto& summary : e.tests)
+    for (const auto& t : tests)
+      if (t.log.path == summary.file && summary.set_aside.empty())
+        for (const auto& s : t.log.set_aside)
+          summary.set_aside.push_back({std::string(units::QuantityName(s.quantity)), s.lines});
+
   // 2. The mechanical basis.
   const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf || st.usable;
   const bool inertia_known = options.known_inertia_kg_m2.has_value();

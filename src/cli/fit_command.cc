@@ -11,6 +11,7 @@
 #include "src/cli/key_value.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
+#include "src/ingest/outliers.h"
 #include "src/ingest/read_bench_log.h"
 #include "src/output/atomic_file.h"
 #include "src/output/parameter_table.h"
@@ -148,6 +149,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   std::vector<joint::TestLog> logs;
   for (const auto& p : planned) {
     BenchLog log = ReadBenchLog(p.path, p.read);
+    SetAsideOutliers(&log);
     RequireForTest(log, p.kind);
     log.path = p.shown_path;
     logs.push_back({p.kind, std::move(log)});

@@ -1,5 +1,6 @@
 #include "src/output/parameter_table.h"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <sstream>
@@ -79,6 +80,15 @@ std::string ParameterTable(const MotorEstimate& e) {
       out << "      " << r.channel << " residual RMS " << FormatValue(r.rms, 0.0, 3) << " " << r.unit << " over "
           << r.samples << (r.samples == 1 ? " residual" : " residuals") << ", lag-1 autocorrelation "
           << FormatValue(r.lag1_autocorrelation, 0.0, 2) << "\n";
+    }
+    for (const auto& [channel, lines] : t.set_aside) {
+      out << "      " << lines.size() << " isolated " << channel << (lines.size() == 1 ? " reading" : " readings")
+          << " set aside as outliers (line";
+      constexpr std::size_t kLinesShown = 5;
+      out << (lines.size() == 1 ? " " : "s ");
+      for (std::size_t k = 0; k < std::min(lines.size(), kLinesShown); ++k) out << (k ? ", " : "") << lines[k];
+      if (lines.size() > kLinesShown) out << ", ...";
+      out << "): replaced by the line between their neighbours\n";
     }
   }
   if (!e.intervals.notes.empty()) {

@@ -49,6 +49,9 @@ Json TestJson(const TestSummary& t) {
   Json share = Json::object();
   for (const auto& [key, value] : t.information_share) share[key] = value;
   j["information_share"] = share;
+  Json set_aside = Json::object();
+  for (const auto& [channel, lines] : t.set_aside) set_aside[channel] = {{"count", lines.size()}, {"lines", lines}};
+  j["set_aside"] = set_aside;
   j["warnings"] = t.warnings;
   return j;
 }
