@@ -10,6 +10,7 @@
 #include <utility>
 
 #include "src/ingest/encoder_speed.h"
+#include "src/ingest/noise_level.h"
 #include "src/ingest/segmentation.h"
 
 namespace coilspin {
@@ -98,17 +99,6 @@ double RoundingFloor(const std::vector<double>& x) {
   double magnitude = 0.0;
   for (double value : x) magnitude = std::max(magnitude, std::abs(value));
   return kRoundingUlps * std::numeric_limits<double>::epsilon() * magnitude;
-}
-
-// σ from MAD of second differences: a ramp (a coast, a decaying back-EMF) adds
-// a constant to first differences but nearly nothing to second ones.
-double NoiseFromSecondDifferences(const std::vector<double>& x) {
-  if (x.size() < 3) return 0.0;
-  std::vector<double> second(x.size() - 2);
-  for (std::size_t k = 0; k + 2 < x.size(); ++k) second[k] = x[k + 2] - 2.0 * x[k + 1] + x[k];
-  const double center = Median(second);
-  for (double& d : second) d = std::abs(d - center);
-  return Median(std::move(second)) / (kNormalMadPerSigma * kSecondDifferenceSigmaPerSigma);
 }
 
 // The smallest k in [lo, hi) with t_k ≥ time; hi when there is none.
@@ -207,7 +197,7 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   view.forward.resize(n);
   for (std::size_t k = 0; k < n; ++k) view.forward[k] = view.direction * speed_rad_s[k];
   const std::vector<double>& u = view.forward;
-  const double sigma = speed_sigma_rad_s ? *speed_sigma_rad_s : NoiseFromSecondDifferences(u);
+  const double sigma = speed_sigma_rad_s ? *speed_sigma_rad_s : EstimateChannelNoise(u).sigma;
   view.sigma = std::max(sigma, RoundingFloor(u));
   view.band = kSpeedBandSigmas * view.sigma;
 
@@ -332,7 +322,7 @@ std::optional<std::size_t> OffFromVoltage(const std::vector<double>& time_s, con
   const double sign = run_voltage > 0.0 ? 1.0 : -1.0;
   std::vector<double> w(n);
   for (std::size_t k = 0; k < n; ++k) w[k] = sign * voltage_V[k];
-  const double sigma = std::max(NoiseFromSecondDifferences(w), RoundingFloor(w));
+  const double sigma = std::max(EstimateChannelNoise(w).sigma, RoundingFloor(w));
   const double threshold = kVoltageJumpSigmas * kDifferenceSigmaPerSigma * sigma;
   std::optional<std::size_t> best;
   double best_jump = -threshold;
