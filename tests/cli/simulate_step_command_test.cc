@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "cli/run_coilspin.h"
+#include "cli/simulated_csv.h"
 
 namespace coilspin::testing {
 namespace {
@@ -21,36 +22,6 @@ const std::string kMotor =
     "--viscous-friction 1.1e-5 --coulomb-friction 4.5e-3";
 // The CSV writer keeps 10 significant digits (src/output/bench_log_csv.h): times below 1 s to 1e-12 s.
 constexpr double kTimeTolerance_s = 1e-12;
-
-struct Csv {
-  std::vector<std::string> comments;  // without the leading "# "
-  std::vector<std::string> header;
-  std::vector<std::vector<double>> rows;
-};
-
-std::vector<std::string> Cells(const std::string& line) {
-  std::vector<std::string> cells;
-  std::istringstream in(line);
-  for (std::string cell; std::getline(in, cell, ',');) cells.push_back(cell);
-  return cells;
-}
-
-Csv ReadCsv(const std::filesystem::path& path) {
-  Csv csv;
-  std::istringstream in(Slurp(path));
-  for (std::string line; std::getline(in, line);) {
-    if (line.rfind("# ", 0) == 0) {
-      csv.comments.push_back(line.substr(2));
-    } else if (csv.header.empty()) {
-      csv.header = Cells(line);
-    } else {
-      std::vector<double> row;
-      for (const std::string& cell : Cells(line)) row.push_back(std::stod(cell));
-      csv.rows.push_back(row);
-    }
-  }
-  return csv;
-}
 
 class SimulateStepCommand : public ::testing::Test {
  protected:
