@@ -16,6 +16,7 @@
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_spin_down.h"
 #include "src/units/constants.h"
+#include "model/small_motor.h"
 
 namespace coilspin::model {
 namespace {
@@ -23,18 +24,7 @@ namespace {
 constexpr int kSegments = 7;
 constexpr double kAmplitude = 0.015, kPhase_rad = 0.7;
 
-// Invented small motor (τm = J·R/(Ke·Kt) ≈ 44 ms; 6 V gives about 190 rad/s, a ripple near 210 Hz).
-MotorParameters Motor() {
-  MotorParameters m;
-  m.resistance_ohm = 2.0;
-  m.inductance_H = 1e-3;
-  m.back_emf_constant_V_s_per_rad = 0.03;
-  m.torque_constant_N_m_per_A = 0.03;
-  m.inertia_kg_m2 = 2e-5;
-  m.viscous_friction_N_m_s_per_rad = 1e-5;
-  m.coulomb_friction_N_m = 2e-3;
-  return m;
-}
+MotorParameters Motor() { return SmallMotor(); }  // 6 V: about 190 rad/s, a ripple near 210 Hz
 
 BenchConditions Rippled() {
   BenchConditions bench;

@@ -12,21 +12,17 @@
 
 #include "src/model/simulate_spin_down.h"
 #include "src/model/wandering_friction.h"
+#include "model/small_motor.h"
 
 namespace coilspin::model {
 namespace {
 
 constexpr double kStandardErrors = 4.0;  // common practice, as tests/model/sensor_chain_test.cc
 
-MotorParameters SmallMotor() {
-  MotorParameters m;
-  m.resistance_ohm = 2.0;
-  m.inductance_H = 1e-3;
-  m.back_emf_constant_V_s_per_rad = 0.03;
-  m.torque_constant_N_m_per_A = 0.03;
-  m.inertia_kg_m2 = 2e-5;
+// B small enough for a closed form of the drag coast (4c·Tc > B²)
+MotorParameters LowViscosityMotor() {
+  MotorParameters m = SmallMotor();
   m.viscous_friction_N_m_s_per_rad = 1e-6;
-  m.coulomb_friction_N_m = 2e-3;
   return m;
 }
 
@@ -69,7 +65,7 @@ TEST(MechanicalDiscrepancy, DragCoastFollowsTheClosedForm) {
   plan.coast_s = 2.0;
   plan.sample_period_s = 1e-3;
   // c·ω² at 190 rad/s is about 0.36 mN·m against Tc = 2 mN·m
-  ExpectCoastFollowsTheClosedForm(SmallMotor(), plan, 1e-8, 1e-9);
+  ExpectCoastFollowsTheClosedForm(LowViscosityMotor(), plan, 1e-8, 1e-9);
 }
 
 TEST(MechanicalDiscrepancy, LongFlywheelCoastAt50HzFollowsTheClosedForm) {
@@ -118,7 +114,7 @@ TEST(MechanicalDiscrepancy, CoastingShaftFeelsTcPlusTheWanderOfEachSamplePeriod)
   // With B = 0 and no drag the open-circuit coast has J·dω/dt = −(Tc + δ_k) over [t_k, t_k+1):
   // ω_(k+1) = ω_k − (Tc + δ_k)·Δ/J exactly (physics; RK4 is exact for a constant rate).
   MotorParameters m = SmallMotor();
-  m.viscous_friction_N_m_s_per_rad = 0.0;
+  m.viscous_friction_N_m_s_per_rad = 0.0;  // B = 0
   SpinDownPlan plan;
   plan.supply_V = 6.0;
   plan.run_s = 0.5;

@@ -16,6 +16,7 @@
 #include "src/model/measurement_noise.h"
 #include "src/model/noise_streams.h"
 #include "src/units/constants.h"
+#include "model/series_moments.h"
 
 namespace coilspin::model {
 namespace {
@@ -25,26 +26,6 @@ namespace {
 constexpr double kStandardErrors = 4.0;
 constexpr std::uint64_t kSeed = 20261203;
 const SensorStreams kStreams{kCurrentNoiseStream, kCurrentDropoutStream, kCurrentSpikeStream};
-
-struct Moments {
-  double mean = 0.0;
-  double std_dev = 0.0;
-  double lag1 = 0.0;  // r1 = Σ(x_k − x̄)(x_(k−1) − x̄)/Σ(x_k − x̄)²
-};
-
-Moments MomentsOf(const std::vector<double>& x) {
-  const double n = static_cast<double>(x.size());
-  Moments m;
-  for (double v : x) m.mean += v / n;
-  double sum_squares = 0.0, sum_lag = 0.0;
-  for (std::size_t k = 0; k < x.size(); ++k) {
-    sum_squares += (x[k] - m.mean) * (x[k] - m.mean);
-    if (k > 0) sum_lag += (x[k] - m.mean) * (x[k - 1] - m.mean);
-  }
-  m.std_dev = std::sqrt(sum_squares / (n - 1.0));
-  m.lag1 = sum_lag / sum_squares;
-  return m;
-}
 
 std::vector<double> Noise(std::size_t n, double sigma, double phi) {
   std::vector<double> channel(n, 0.0);

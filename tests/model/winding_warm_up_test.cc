@@ -14,6 +14,7 @@
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_step.h"
+#include "model/small_motor.h"
 
 namespace coilspin::model {
 namespace {
@@ -31,16 +32,10 @@ BenchConditions Warming() {
 // closed form: θ_w(t) = θ_w0 + ΔT·(1 − e^(−t/τ_th))
 double ClosedForm_degC(double t_s) { return kStart_degC + kRise_K * (1.0 - std::exp(-t_s / kTimeConstant_s)); }
 
+// L/R = 0.5 ms: settled within each 10 ms sample period of the locked-rotor test
 MotorParameters Motor() {
-  MotorParameters m;
-  m.resistance_ohm = 2.0;  // at 25 degC
-  m.inductance_H = 1e-3;   // L/R = 0.5 ms, settled within each 10 ms sample period
+  MotorParameters m = SmallMotor();  // R at 25 degC
   m.brush_drop_V = 0.4;
-  m.back_emf_constant_V_s_per_rad = 0.03;
-  m.torque_constant_N_m_per_A = 0.03;
-  m.inertia_kg_m2 = 2e-5;
-  m.viscous_friction_N_m_s_per_rad = 1e-5;
-  m.coulomb_friction_N_m = 2e-3;
   return m;
 }
 
