@@ -209,7 +209,7 @@ void PrintFooter(const Run& run, int motors, int benches, double wall_s, double 
   std::printf("fits that threw: %zu\n", run.exceptions.size());
   for (const std::string& line : run.exceptions) std::printf("  %s\n", line.c_str());
   std::printf("messages by shape (# a number): fits giving it, the fits when few, one exact example:\n");
-  constexpr int kListBenchesUpTo = 6;
+  constexpr int kListBenchesUpTo = 15;
   for (const auto& [shape, m] : run.messages) {
     std::printf("  %3d  %s\n", m.fits, shape.c_str());
     if (m.fits <= kListBenchesUpTo) {
