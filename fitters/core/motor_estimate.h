@@ -43,12 +43,12 @@ struct TestSummary {
   std::string method;   // how the fitter used the log, in words
   std::vector<ChannelResidual> residuals;
   std::vector<std::string> warnings;
-  // Readings set aside as isolated outliers (src/ingest/outliers.h), per channel:
-  // the channel's name and the file lines of the readings.
-  std::vector<std::pair<std::string, std::vector<long>>> set_aside;
   // Per estimated parameter: this test's share of its information (variance
   // contribution, core::GroupStatistics::information_share), summing to 1 over tests.
   std::vector<std::pair<std::string, double>> information_share;
+  // Readings set aside as isolated outliers (src/ingest/outliers.h), per channel:
+  // the channel's name and the file lines of the readings.
+  std::vector<std::pair<std::string, std::vector<long>>> set_aside;
 };
 
 struct SolverSummary {

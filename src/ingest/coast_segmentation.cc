@@ -36,6 +36,13 @@ constexpr double kOffCurrentSigmas = 6.0;
 // The running current must be "well above" that: its median over the level
 // window at least twice the threshold, 12 σ_i (common practice).
 constexpr double kRunCurrentFactor = 2.0;
+// ... and the band never narrower than two reading steps of a quantised sensor
+// (a reading toggling between two codes is no current).
+constexpr double kOffCurrentSteps = 2.0;
+// The zero reading is the median of the log's last quarter; the coast's early
+// current, judged for braking, the median of its first quarter (common practice).
+constexpr std::size_t kZeroReadingDivisor = 4;
+constexpr std::size_t kEarlyCoastDivisor = 4;
 
 // ---- Power off from the voltage -----------------------------------------------
 
@@ -82,10 +89,6 @@ constexpr double kFallTimeMargin = 2.0;
 constexpr std::size_t kRestHoldSamples = 16;
 
 // ---- Warnings -------------------------------------------------------------------
-
-// White noise alone gives an RMS of σ (±1/√(2n) relative); 3 σ is a current,
-// not noise (statistics: distribution of the sample RMS).
-constexpr double kCoastCurrentSigmas = 3.0;
 // The speed at the end of the log: the median of its last 5 samples (a spike of
 // up to 2 samples cannot move it; order statistics).
 constexpr std::size_t kEndSamples = 5;
@@ -288,13 +291,29 @@ bool AtRunLevel(const SpeedView& view, std::size_t k) {
   return MedianOf(view.forward, k - std::min(kLevelSamples, k), k) >= view.run_level - view.band;
 }
 
-// Route 1: the first stretch of kMinCoastSamples or more with |i| ≤ threshold
-// (ended only by two samples above it), after a running current well above it.
+// The noise band of the current around its zero reading: 6 σ (marginal, coloured
+// noise included, noise_level.h), and never less than two reading steps.
+double CurrentBand(const std::vector<double>& current_A) {
+  const ChannelNoise noise = EstimateChannelNoise(current_A);
+  return std::max({kOffCurrentSigmas * noise.sigma, kOffCurrentSteps * noise.step, RoundingFloor(current_A)});
+}
+
+// What the current sensor reads at zero current: the median of the log's last
+// quarter (one coast per log, so the log ends coasting or at rest). A sensor's
+// zero offset is not a current: judged against this, an offset of a few tenths of
+// a per cent of full scale no longer hides the power-off or reads as braking.
+double ZeroReading(const std::vector<double>& current_A) {
+  return MedianOf(current_A, current_A.size() - current_A.size() / kZeroReadingDivisor, current_A.size());
+}
+
+// Route 1: the first stretch of kMinCoastSamples or more within the band of the
+// zero reading (ended only by two samples outside it), after a running current
+// well outside it.
 std::optional<std::size_t> OffFromCurrent(const std::vector<double>& current_A, const SpeedView& view) {
   const std::size_t n = current_A.size();
-  const double sigma = std::max(NoiseFromDifferences(current_A), RoundingFloor(current_A));
-  const double threshold = kOffCurrentSigmas * sigma;
-  const auto above = [&](std::size_t k) { return std::abs(current_A[k]) > threshold; };
+  const double threshold = CurrentBand(current_A);
+  const double zero = ZeroReading(current_A);
+  const auto above = [&](std::size_t k) { return std::abs(current_A[k] - zero) > threshold; };
   std::size_t k = 0;
   while (k < n) {
     if (above(k)) {
@@ -306,7 +325,7 @@ std::optional<std::size_t> OffFromCurrent(const std::vector<double>& current_A, 
     if (k - begin < kMinCoastSamples || begin < kMinRunSamples) continue;
     std::vector<double> running;
     for (std::size_t j = begin - std::min(kLevelSamples, begin); j < begin; ++j)
-      running.push_back(std::abs(current_A[j]));
+      running.push_back(std::abs(current_A[j] - zero));
     if (Median(std::move(running)) > kRunCurrentFactor * threshold && AtRunLevel(view, begin)) return begin;
   }
   return std::nullopt;
@@ -400,23 +419,28 @@ std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<dou
                                     : MedianOf(view->forward, coast.power_off - level, coast.power_off));
   coast.speed_sigma_rad_s = view->sigma;
   if (!log.current_A.empty() && coast.rest > coast.power_off) {
+    coast.zero_current_A = ZeroReading(log.current_A);
     double sum = 0.0;
     double squares = 0.0;
     for (std::size_t k = coast.power_off; k < coast.rest; ++k) {
-      sum += log.current_A[k];
-      squares += log.current_A[k] * log.current_A[k];
+      sum += log.current_A[k] - coast.zero_current_A;
+      squares += (log.current_A[k] - coast.zero_current_A) * (log.current_A[k] - coast.zero_current_A);
     }
     const auto count = static_cast<double>(coast.size());
     coast.off_current_mean_A = sum / count;
     coast.off_current_rms_A = std::sqrt(squares / count);
+    // The start of the coast against its zero reading: a braking current follows the back-EMF,
+    // largest at power off; an offset is the same at every speed.
+    const std::size_t early_end = coast.power_off + std::max<std::size_t>(1, coast.size() / kEarlyCoastDivisor);
+    coast.early_current_A = MedianOf(log.current_A, coast.power_off, early_end) - coast.zero_current_A;
+    coast.current_band_A = CurrentBand(log.current_A);
   }
   return coast;
 }
 
 bool CurrentFlowsDuringCoast(const BenchLog& log, const CoastSegment& coast) {
   if (log.current_A.empty() || coast.rest <= coast.power_off) return false;
-  const double sigma = std::max(NoiseFromDifferences(log.current_A), RoundingFloor(log.current_A));
-  return coast.off_current_rms_A > kCoastCurrentSigmas * sigma;
+  return std::abs(coast.early_current_A) > coast.current_band_A;
 }
 
 bool StopsLongBeforeRest(const std::vector<double>& speed_rad_s, const CoastSegment& coast, double fraction) {
@@ -431,10 +455,10 @@ CoastWarnings CheckCoast(const BenchLog& log, const std::vector<double>& speed_r
   CoastWarnings warnings;
   warnings.current_flows = CurrentFlowsDuringCoast(log, coast);
   if (warnings.current_flows) {
-    const double sigma = std::max(NoiseFromDifferences(log.current_A), RoundingFloor(log.current_A));
-    warnings.messages.push_back("current flows during the coast (mean " + Format("%.3g", coast.off_current_mean_A) +
-                                " A, RMS " + Format("%.3g", coast.off_current_rms_A) + " A, noise sigma " +
-                                Format("%.3g", sigma) +
+    warnings.messages.push_back("current flows during the coast (" + Format("%.3g", coast.early_current_A) +
+                                " A in its first part, mean " + Format("%.3g", coast.off_current_mean_A) +
+                                " A, against the sensor's reading at rest " + Format("%.3g", coast.zero_current_A) +
+                                " A and a noise band of " + Format("%.3g", coast.current_band_A) +
                                 " A): the terminals are not open, a driver or a diode brakes the rotor, and "
                                 "B/J and Tc/J include that braking");
   }
