@@ -173,7 +173,7 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
     estimate->tests.push_back({kTest, pl.log->path, static_cast<long>(pl.log->size()),
                                "plateaus: " + std::to_string(pl.plateaus.size()) + " settled levels with current" +
                                    (pl.plateaus.empty() || !pl.plateaus.front().has_torque ? "" : ", torque logged"),
-                               {}, {}, {}});
+                               {}, {}, {}, {}});
     if (pl.plateaus.empty()) {
       const std::string text = pl.log->path + ": no settled plateau with current was found";
       estimate->tests.back().warnings.push_back(text);
@@ -186,7 +186,7 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
         {kTest, sl.log->path, static_cast<long>(sl.log->size()),
          "step capture: current rise resolved by " + Format("%.0f", sl.classification.rise_samples) +
              " samples per time constant; fitted sample by sample with the logged voltage as input",
-         {}, {}, {}});
+         {}, {}, {}, {}});
   }
   if (!plan.resistance_identified) {
     estimate->not_identified.push_back(

@@ -55,7 +55,7 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
     estimate->tests.push_back({kTest, logs[k]->path, static_cast<long>(logs[k]->size()),
                                "plateaus: " + std::to_string(nl.plateaus.size()) + " settled levels turning; speed: " +
                                    speeds[k].method,
-                               {}, {}, {}});
+                               {}, {}, {}, {}});
     plan.logs.push_back(nl);
   }
   // Friction start: Kt·ī = B·ω̄ + Tc·sgn(ω̄) by least squares, with Kt = Ke at its start.

@@ -47,7 +47,7 @@ SpinDownPlan PlanSpinDown(const std::vector<const BenchLog*>& logs, std::optiona
   std::vector<double> all_b, all_c;
   for (const BenchLog* log : logs) {
     plan.summary_index.push_back(estimate->tests.size());
-    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}});
+    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}, {}});
     TestSummary& summary = estimate->tests.back();
     const auto warn = [&](const std::string& text) {
       summary.warnings.push_back(log->path + ": " + text);

@@ -82,7 +82,7 @@ StepTestPlan PlanStep(const std::vector<const BenchLog*>& logs, std::optional<do
   std::vector<double> r, l, ke, a, b, c;
   for (const BenchLog* log : logs) {
     plan.summary_index.push_back(estimate->tests.size());
-    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}});
+    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}, {}});
     TestSummary& summary = estimate->tests.back();
     StepLog s;
     s.log = log;
