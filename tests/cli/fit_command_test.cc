@@ -47,7 +47,7 @@ TEST_F(FitCommand, GoodRunWritesTableAndResultFile) {
   EXPECT_NE(r.out.find("resistance"), std::string::npos);
   EXPECT_NE(r.out.find("ohm"), std::string::npos);
   const auto j = nlohmann::json::parse(Slurp(dir() / "result.json"));
-  EXPECT_EQ(j["format"], "coilspin.result/1");
+  EXPECT_EQ(j["format"], "coilspin.result/2");
   const double r_ohm = j["parameters"]["resistance"]["value"];
   const double l_H = j["parameters"]["inductance"]["value"];
   EXPECT_NEAR(r_ohm, kTrueResistance_ohm, 0.01 * kTrueResistance_ohm);
