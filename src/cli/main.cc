@@ -7,6 +7,7 @@
 
 #include "src/cli/consistency_command.h"
 #include "src/cli/exit_codes.h"
+#include "src/cli/export_command.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
 #include "src/ingest/input_error.h"
@@ -44,6 +45,11 @@ int main(int argc, char** argv) {
       app.add_subcommand("consistency", "Check a datasheet's torque and back-EMF constants against Kt = Ke (SI)");
   cli::DeclareConsistencyOptions(consistency_command, &consistency);
 
+  cli::ExportArguments export_arguments;
+  CLI::App* export_command =
+      app.add_subcommand("export", "Write a fitted motor for other tools: SPICE, state-space, C++ header, CSV");
+  cli::DeclareExportOptions(export_command, &export_arguments);
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -58,6 +64,7 @@ int main(int argc, char** argv) {
     }
     if (*simulate_command) return cli::RunSimulate(simulate);
     if (*consistency_command) return cli::RunConsistency(consistency, std::cout);
+    if (*export_command) return cli::RunExport(export_arguments, std::cout, std::cerr);
   } catch (const InputError& e) {
     std::cerr << "coilspin: error: " << e.what() << "\n";
     return cli::kBadInput;
