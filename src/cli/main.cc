@@ -10,6 +10,7 @@
 #include "src/cli/export_command.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
+#include "src/cli/tune_command.h"
 #include "src/ingest/input_error.h"
 
 namespace {
@@ -50,6 +51,11 @@ int main(int argc, char** argv) {
       app.add_subcommand("export", "Write a fitted motor for other tools: SPICE, state-space, C++ header, CSV");
   cli::DeclareExportOptions(export_command, &export_arguments);
 
+  cli::TuneArguments tune;
+  CLI::App* tune_command =
+      app.add_subcommand("tune", "PI gains of a drive's current and speed loops for a fitted motor");
+  cli::DeclareTuneOptions(tune_command, &tune);
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -65,6 +71,7 @@ int main(int argc, char** argv) {
     if (*simulate_command) return cli::RunSimulate(simulate);
     if (*consistency_command) return cli::RunConsistency(consistency, std::cout);
     if (*export_command) return cli::RunExport(export_arguments, std::cout, std::cerr);
+    if (*tune_command) return cli::RunTune(tune, std::cout, std::cerr);
   } catch (const InputError& e) {
     std::cerr << "coilspin: error: " << e.what() << "\n";
     return cli::kBadInput;
