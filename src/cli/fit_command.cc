@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <charconv>
 #include <cstdlib>
+#include <iostream>
 #include <ostream>
 
 #include "fitters/core/bootstrap_progress.h"
@@ -180,14 +181,17 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
     if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
   }
-  std::vector<std::string> undetermined;
+  std::vector<std::pair<std::string, std::string>> undetermined;  // key, reason
   for (const auto& key : required)
     for (const auto& [missing, reason] : estimate.not_identified)
-      if (missing == key && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
-        undetermined.push_back(key);
+      if (missing == key && std::find_if(undetermined.begin(), undetermined.end(),
+                                         [&](const auto& u) { return u.first == key; }) == undetermined.end())
+        undetermined.push_back({key, reason});
 
   if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::ResultJson(estimate));
   if (!a.quiet) out << output::ParameterTable(estimate);
+  // Why the exit status is 1, on stderr whether or not the table was printed.
+  for (const auto& [key, reason] : undetermined) std::cerr << "coilspin: " << key << " not determined: " << reason << "\n";
   return undetermined.empty() ? kSuccess : kUndetermined;
 }
 

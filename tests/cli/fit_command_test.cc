@@ -81,6 +81,14 @@ TEST_F(FitCommand, RequiredInductanceWithoutStepCaptureExitsOne) {
   EXPECT_TRUE(j["not_identified"].contains("inductance"));
 }
 
+TEST_F(FitCommand, QuietExitOneStillSaysWhyOnStderr) {
+  const RunResult r = RunCoilspin("fit --locked-rotor plateaus.csv --require inductance --quiet", dir());
+  EXPECT_EQ(r.status, 1);
+  EXPECT_EQ(r.out, "");
+  EXPECT_NE(r.err.find("coilspin: inductance not determined: needs a locked-rotor step capture"), std::string::npos)
+      << r.err;
+}
+
 TEST_F(FitCommand, FreeShaftStepEndToEnd) {
   // simulate writes a step log of a known motor (Vb = 0); fit reads it back. The
   // issue's step-only bounds: R 2 %, Ke 1 %, J 5 %.
