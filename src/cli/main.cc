@@ -2,10 +2,10 @@
 // bench logs. This file is the only place that maps failures to exit codes.
 
 #include <CLI/CLI.hpp>
-#include <cstdlib>
 #include <iostream>
 
 #include "src/cli/consistency_command.h"
+#include "src/cli/demo_session.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/export_command.h"
 #include "src/cli/fit_command.h"
@@ -13,21 +13,12 @@
 #include "src/cli/tune_command.h"
 #include "src/ingest/input_error.h"
 
-namespace {
-
-// The demo session shipped in datasets-demo/ (COILSPIN_DEMO_DIR overrides the built-in path).
-std::string DemoSession() {
-  const char* folder = std::getenv("COILSPIN_DEMO_DIR");
-  return std::string(folder ? folder : COILSPIN_DEMO_DIR) + "/session.toml";
-}
-
-}  // namespace
-
 int main(int argc, char** argv) {
   using namespace coilspin;
   CLI::App app{"coilspin: permanent-magnet DC motor parameters from bench logs, with confidence intervals"};
   app.require_subcommand(1);
   app.set_version_flag("--version", "coilspin 0.1.0");
+  app.set_help_all_flag("--help-all", "Print the help of every command and exit (the manual page is made from it)");
 
   cli::FitArguments fit;
   CLI::App* fit_command = app.add_subcommand("fit", "Fit motor parameters to bench logs");
@@ -65,7 +56,8 @@ int main(int argc, char** argv) {
   try {
     if (*fit_command) return cli::RunFit(fit, std::cout);
     if (*demo_command) {
-      demo.session_path = DemoSession();
+      demo.session_path = cli::DemoSessionPath();
+      std::cerr << "coilspin demo: fitting " << demo.session_path << "\n";
       return cli::RunFit(demo, std::cout);
     }
     if (*simulate_command) return cli::RunSimulate(simulate);
