@@ -4,6 +4,12 @@
 
 namespace coilspin::output {
 
+nlohmann::ordered_json SourceJson(const ExportSource& source) {
+  nlohmann::ordered_json from = {{"result", source.result_file}, {"format", source.result_format}};
+  if (!source.motor_label.empty()) from["motor"] = source.motor_label;
+  return from;
+}
+
 std::string IdentifierFrom(const std::string& text, const std::string& fallback) {
   std::string id;
   for (const char c : text) {

@@ -2,6 +2,7 @@
 // What every export says about where its numbers come from: the result file it
 // was made from, that file's format and the motor's label.
 
+#include <nlohmann/json.hpp>
 #include <string>
 
 namespace coilspin::output {
@@ -12,6 +13,10 @@ struct ExportSource {
   std::string motor_label;   // may be empty
   double confidence = 0.95;
 };
+
+// {"result": ..., "format": ..., "motor": ...} (motor only when labelled), the
+// "source" entry of the JSON exports.
+nlohmann::ordered_json SourceJson(const ExportSource& source);
 
 // "dome rotator DR-2" → "dome_rotator_DR_2": letters, digits and '_', not
 // starting with a digit; `fallback` when nothing is left.

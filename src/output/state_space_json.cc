@@ -19,9 +19,7 @@ std::string StateSpaceJson(const model::StateSpace& system, const result::ModelP
                            const ExportSource& source) {
   Json j;
   j["format"] = kStateSpaceFormat;
-  Json from = {{"result", source.result_file}, {"format", source.result_format}};
-  if (!source.motor_label.empty()) from["motor"] = source.motor_label;
-  j["source"] = from;
+  j["source"] = SourceJson(source);
   j["time"] = "continuous";
   j["states"] = {"current", "speed"};
   j["state_units"] = {"A", "rad/s"};

@@ -78,9 +78,7 @@ std::string TuningJson(const tune::Tuning& t, const std::vector<std::string>& ta
                        const ExportSource& source) {
   Json j;
   j["format"] = kTuningFormat;
-  Json from = {{"result", source.result_file}, {"format", source.result_format}};
-  if (!source.motor_label.empty()) from["motor"] = source.motor_label;
-  j["source"] = from;
+  j["source"] = SourceJson(source);
   j["confidence"] = t.confidence;
   j["current_loop"] = LoopJson(t.current, kCurrentWords);
   j["speed_loop"] = LoopJson(t.speed, kSpeedWords);

@@ -9,9 +9,9 @@
 #     the path is found from the executable, not compiled in);
 #   - the completion offers the commands, a command's options and an option's values;
 #   - cpack -G DEB makes a .deb holding the same files.
-# Usage: install_check.sh BUILD_DIR CMAKE_COMMAND CPACK_COMMAND
+# Usage: install_check.sh BUILD_DIR CMAKE_COMMAND CPACK_COMMAND PYTHON SOURCE_DIR
 set -euo pipefail
-build=$1 cmake=$2 cpack=$3
+build=$1 cmake=$2 cpack=$3 python=$4 source=$5
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT
 passed=0 failed=0
@@ -35,7 +35,8 @@ mkdir "$work/elsewhere"
 check "installed demo fits the installed session" \
   grep -qF "coilspin demo: fitting $prefix/share/coilspin/demo/session.toml" "$work/elsewhere/err.txt"
 check "installed demo prints the table" grep -qE 'resistance +R +1\.37[0-9]+ +ohm' "$work/elsewhere/out.txt"
-check "installed demo writes its result" grep -q '"format": "coilspin.result/2"' "$work/elsewhere/demo.json"
+check "installed demo's result conforms to the format-2 schema" \
+  "$python" "$source/tests/tools/validate_result.py" "$source/docs/result-format-2.schema.json" "$work/elsewhere/demo.json"
 
 complete_words() {  # complete_words WORD... : what the completion offers for the last word
   PATH="$prefix/bin:$PATH" bash -c 'source "$1"; shift; COMP_WORDS=("$@"); COMP_CWORD=$(($# - 1)); _coilspin;
