@@ -90,7 +90,9 @@ std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& 
   q.ci_high = q.value + t * q.std_error;
   q.tests = tests;
   if (formula.at_voltage) q.at_voltage_V = voltage_V;
-  if (formula.at_voltage && !e.Find("brush_drop")) q.note = "brush drop not determined: taken as 0 V";
+  q.note = model::DerivedNote(formula.key);
+  if (formula.at_voltage && !e.Find("brush_drop"))
+    q.note += (q.note.empty() ? "" : "; ") + std::string("brush drop not determined: taken as 0 V");
   return q;
 }
 

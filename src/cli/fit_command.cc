@@ -1,8 +1,9 @@
 #include "src/cli/fit_command.h"
 
 #include <algorithm>
-#include <cstdio>
+#include <charconv>
 #include <cstdlib>
+#include <iostream>
 #include <ostream>
 
 #include "fitters/core/bootstrap_progress.h"
@@ -27,10 +28,12 @@ struct PlannedTest {
   std::string shown_path;  // how the result names the log: as the user wrote it
 };
 
+// The shortest text that reads back as the same double (so a setting keeps
+// every digit the user gave).
 std::string Text(double value) {
   char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%g", value);
-  return buffer;
+  const auto written = std::to_chars(buffer, buffer + sizeof buffer, value);
+  return std::string(buffer, written.ptr);
 }
 
 template <typename T>
@@ -80,7 +83,7 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--unit", a->unit_specs, "Unit of a quantity whose header names none, e.g. --unit current=mA");
   c->add_option("--require", a->required,
                 "Parameter that must be determined (else exit status 1), e.g. --require inductance");
-  c->add_option("--json", a->json_path, "Write the result file (coilspin.result/1) here, atomically");
+  c->add_option("--json", a->json_path, "Write the result file (coilspin.result/2) here, atomically");
   c->add_flag("--quiet", a->quiet, "Print no table");
 }
 
@@ -141,7 +144,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
                        "--noise " + std::string(units::QuantityName(quantity)) + "=" + text +
                            ": expected a number in SI units (A, V, rad/s, rad)");
     options.noise.push_back({std::string(units::QuantityName(quantity)), sigma});
-    estimate_settings_noise.push_back({"noise_" + std::string(units::QuantityName(quantity)), text});
+    estimate_settings_noise.push_back({"noise_" + std::string(units::QuantityName(quantity)), Text(sigma)});
   }
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
@@ -180,14 +183,17 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
     if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
   }
-  std::vector<std::string> undetermined;
+  std::vector<std::pair<std::string, std::string>> undetermined;  // key, reason
   for (const auto& key : required)
     for (const auto& [missing, reason] : estimate.not_identified)
-      if (missing == key && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
-        undetermined.push_back(key);
+      if (missing == key && std::find_if(undetermined.begin(), undetermined.end(),
+                                         [&](const auto& u) { return u.first == key; }) == undetermined.end())
+        undetermined.push_back({key, reason});
 
   if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::ResultJson(estimate));
   if (!a.quiet) out << output::ParameterTable(estimate);
+  // Why the exit status is 1, on stderr whether or not the table was printed.
+  for (const auto& [key, reason] : undetermined) std::cerr << "coilspin: " << key << " not determined: " << reason << "\n";
   return undetermined.empty() ? kSuccess : kUndetermined;
 }
 

@@ -2,30 +2,23 @@
 // bench logs. This file is the only place that maps failures to exit codes.
 
 #include <CLI/CLI.hpp>
-#include <cstdlib>
 #include <iostream>
 
 #include "src/cli/consistency_command.h"
+#include "src/cli/demo_session.h"
 #include "src/cli/exit_codes.h"
+#include "src/cli/export_command.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
+#include "src/cli/tune_command.h"
 #include "src/ingest/input_error.h"
-
-namespace {
-
-// The demo session shipped in datasets-demo/ (COILSPIN_DEMO_DIR overrides the built-in path).
-std::string DemoSession() {
-  const char* folder = std::getenv("COILSPIN_DEMO_DIR");
-  return std::string(folder ? folder : COILSPIN_DEMO_DIR) + "/session.toml";
-}
-
-}  // namespace
 
 int main(int argc, char** argv) {
   using namespace coilspin;
   CLI::App app{"coilspin: permanent-magnet DC motor parameters from bench logs, with confidence intervals"};
   app.require_subcommand(1);
   app.set_version_flag("--version", "coilspin 0.1.0");
+  app.set_help_all_flag("--help-all", "Print the help of every command and exit (the manual page is made from it)");
 
   cli::FitArguments fit;
   CLI::App* fit_command = app.add_subcommand("fit", "Fit motor parameters to bench logs");
@@ -44,6 +37,16 @@ int main(int argc, char** argv) {
       app.add_subcommand("consistency", "Check a datasheet's torque and back-EMF constants against Kt = Ke (SI)");
   cli::DeclareConsistencyOptions(consistency_command, &consistency);
 
+  cli::ExportArguments export_arguments;
+  CLI::App* export_command =
+      app.add_subcommand("export", "Write a fitted motor for other tools: SPICE, state-space, C++ header, CSV");
+  cli::DeclareExportOptions(export_command, &export_arguments);
+
+  cli::TuneArguments tune;
+  CLI::App* tune_command =
+      app.add_subcommand("tune", "PI gains of a drive's current and speed loops for a fitted motor");
+  cli::DeclareTuneOptions(tune_command, &tune);
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -53,11 +56,14 @@ int main(int argc, char** argv) {
   try {
     if (*fit_command) return cli::RunFit(fit, std::cout);
     if (*demo_command) {
-      demo.session_path = DemoSession();
+      demo.session_path = cli::DemoSessionPath();
+      std::cerr << "coilspin demo: fitting " << demo.session_path << "\n";
       return cli::RunFit(demo, std::cout);
     }
     if (*simulate_command) return cli::RunSimulate(simulate);
     if (*consistency_command) return cli::RunConsistency(consistency, std::cout);
+    if (*export_command) return cli::RunExport(export_arguments, std::cout, std::cerr);
+    if (*tune_command) return cli::RunTune(tune, std::cout, std::cerr);
   } catch (const InputError& e) {
     std::cerr << "coilspin: error: " << e.what() << "\n";
     return cli::kBadInput;

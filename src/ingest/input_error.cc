@@ -6,7 +6,7 @@
 namespace coilspin {
 namespace {
 
-constexpr std::array<std::pair<InputErrorKind, std::string_view>, 17> kKindNames = {{
+constexpr std::array<std::pair<InputErrorKind, std::string_view>, 18> kKindNames = {{
     {InputErrorKind::kCannotOpen, "cannot-open"},
     {InputErrorKind::kEmptyFile, "empty-file"},
     {InputErrorKind::kBinaryFile, "binary-file"},
@@ -24,6 +24,7 @@ constexpr std::array<std::pair<InputErrorKind, std::string_view>, 17> kKindNames
     {InputErrorKind::kBadOption, "bad-option"},
     {InputErrorKind::kBadSession, "bad-session"},
     {InputErrorKind::kDuplicateColumn, "duplicate-column"},
+    {InputErrorKind::kBadResultFile, "bad-result-file"},
 }};
 
 // "file:line:column: message"; the line is left out when 0, the column when it

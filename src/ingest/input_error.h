@@ -28,6 +28,7 @@ enum class InputErrorKind {
   kBadOption,
   kBadSession,
   kDuplicateColumn,  // two header cells name the same quantity
+  kBadResultFile,    // a result file that is not JSON, not a coilspin result, or lacks a key
 };
 
 std::string_view InputErrorKindName(InputErrorKind kind);

@@ -1,6 +1,9 @@
 #include "src/output/result_json.h"
 
 #include <nlohmann/json.hpp>
+#include <regex>
+
+#include "src/result/parameter_covariance.h"
 
 namespace coilspin::output {
 namespace {
@@ -56,6 +59,16 @@ Json TestJson(const TestSummary& t) {
   return j;
 }
 
+Json MatrixJson(const result::NamedMatrix& m) { return {{"names", m.names}, {"matrix", m.matrix}}; }
+
+// A setting is held as text; one that reads as a JSON number (RFC 8259, 6) is
+// written as that number.
+Json SettingJson(const std::string& text) {
+  static const std::regex number(R"(-?(0|[1-9][0-9]*)(\.[0-9]+)?([eE][+-]?[0-9]+)?)");
+  if (std::regex_match(text, number)) return Json::parse(text);
+  return text;
+}
+
 }  // namespace
 
 std::string ResultJson(const MotorEstimate& e) {
@@ -75,7 +88,8 @@ std::string ResultJson(const MotorEstimate& e) {
   for (const auto& [key, reason] : e.not_identified) missing[key] = reason;
   j["not_identified"] = missing;
   j["ratios"] = QuantitiesJson(e.ratios);
-  j["correlation"] = {{"names", e.correlation_names}, {"matrix", e.correlation}};
+  j["covariance"] = MatrixJson(result::FullCovariance(e));
+  j["correlation"] = MatrixJson(result::FullCorrelation(e));
   j["derived"] = QuantitiesJson(e.derived);
   if (e.torque_speed) {
     Json points = Json::array();
@@ -107,7 +121,7 @@ std::string ResultJson(const MotorEstimate& e) {
                       {"initial_cost", s.initial_cost}, {"final_cost", s.final_cost}});
   j["solver"] = solver;
   Json settings = Json::object();
-  for (const auto& [key, value] : e.settings) settings[key] = value;
+  for (const auto& [key, value] : e.settings) settings[key] = SettingJson(value);
   j["settings"] = settings;
   return j.dump(2) + "\n";
 }
