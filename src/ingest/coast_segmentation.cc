@@ -170,6 +170,7 @@ struct SpeedView {
   std::size_t level_begin = 0;  // the level window [level_begin, level_end)
   std::size_t level_end = 0;
   std::size_t departure = 0;    // first sample of the fall below P − band
+  bool starts_in_coast = false; // no run level: the log starts while the shaft already slows
 };
 
 // [begin, end) from `begin` on while u ≥ floor_level, kLineMinSamples to kLineMaxSamples long.
@@ -225,9 +226,22 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   const std::size_t fall_end = ForwardWhileAbove(u, coarse, coarse_level - allowance - view.depth);
   const std::optional<Line> fall = FitLine(time_s, u, coarse, fall_end);
   if (!fall || !(fall->slope_per_s < 0.0)) return std::nullopt;
-  const double fall_time_s = kFallTimeMargin * allowance / -fall->slope_per_s;
-  view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - fall_time_s, 0, coarse);
-  if (view.level_end < kMinRunSamples) return std::nullopt;
+  const double fall_time_s = allowance / -fall->slope_per_s;
+  view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - kFallTimeMargin * fall_time_s, 0, coarse);
+  // A slow coast after a short run: the margin reaches back past the run's start, while the
+  // fall time itself (already an over-estimate, above) still leaves a run window.
+  if (view.level_end < kMinRunSamples) view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - fall_time_s, 0, coarse);
+  if (view.level_end < kMinRunSamples) {
+    // No run before the fall: the logger was started after the supply was cut. The
+    // shaft must already be slowing over the first samples (a straight line through
+    // them falls by more than the noise band), else this is no coast.
+    const std::optional<Line> start = FitLine(time_s, u, 0, std::min(n, kLineMaxSamples));
+    if (!start || !(-start->slope_per_s * (time_s[std::min(n, kLineMaxSamples) - 1] - time_s[0]) > view.band))
+      return std::nullopt;
+    view.starts_in_coast = true;
+    view.run_level = u[0];
+    return view;
+  }
   view.level_begin = view.level_end - std::min(kLevelSamples, view.level_end);
   view.run_level = MedianOf(u, view.level_begin, view.level_end);
   std::size_t departure = coarse;
@@ -375,6 +389,8 @@ std::string_view PowerOffEvidenceText(PowerOffEvidence evidence) {
       return "voltage collapsed to the back-EMF";
     case PowerOffEvidence::kSpeedFell:
       return "speed began to fall";
+    case PowerOffEvidence::kStartsCoasting:
+      return "the log starts during the coast";
   }
   return "";
 }
@@ -397,8 +413,14 @@ std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<dou
 
   CoastSegment coast;
   std::optional<std::size_t> off;
-  if (!log.current_A.empty()) off = OffFromCurrent(log.current_A, *view);
-  coast.evidence = PowerOffEvidence::kCurrentFell;
+  if (view->starts_in_coast) {
+    off = 0;
+    coast.evidence = PowerOffEvidence::kStartsCoasting;
+  }
+  if (!off && !log.current_A.empty()) {
+    off = OffFromCurrent(log.current_A, *view);
+    coast.evidence = PowerOffEvidence::kCurrentFell;
+  }
   if (!off && !log.voltage_V.empty()) {
     off = OffFromVoltage(log.time_s, log.voltage_V, *view);
     coast.evidence = PowerOffEvidence::kVoltageCollapsed;

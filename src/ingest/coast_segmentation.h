@@ -21,6 +21,9 @@
 //     first with a 2 % drift allowance, then by 4 σ_ω from the median of the
 //     32 run samples before it), moved back to where a straight line through
 //     the first samples of the fall meets the run level ("speed began to fall").
+//  4. no run level at all (the logger started after the supply was cut), the
+//     speed falling over the first samples by more than its noise band: the
+//     coast starts at the first sample ("the log starts during the coast").
 // Rest: the first sample from which |ω| stays within 4 σ_ω for 16 samples (a
 // lone sample outside does not break that), moved on to where a straight line
 // through the approach meets 0 (by at most those 16 samples: an exponential
@@ -49,9 +52,10 @@ namespace coilspin {
 // B and Tc are then hard to separate (common practice).
 inline constexpr double kStopsLongBeforeRestFraction = 0.2;
 
-enum class PowerOffEvidence { kCurrentFell, kVoltageCollapsed, kSpeedFell };
+enum class PowerOffEvidence { kCurrentFell, kVoltageCollapsed, kSpeedFell, kStartsCoasting };
 
-// "current fell to zero", "voltage collapsed to the back-EMF", "speed began to fall".
+// "current fell to zero", "voltage collapsed to the back-EMF", "speed began to fall",
+// "the log starts during the coast".
 std::string_view PowerOffEvidenceText(PowerOffEvidence evidence);
 
 struct CoastSegment {

@@ -33,11 +33,36 @@ double SmallestStep(const std::vector<double>& x) {
 }
 
 // Per sample: the medians of the w neighbours on the left and on the right, the
-// departure d_k from the median of both, and the channel's limit kOutlierScales·S.
+// departure d_k from the median of both, and the limit kOutlierScales·S_k there.
 struct Scan {
-  std::vector<double> left, right, departure;
-  double limit = 0.0;
+  std::vector<double> left, right, departure, limit;
+  double floor = 0.0;  // kOutlierScales times the reading step: no limit is below it
 };
+
+// S_k = 1.4826·median |d| over the block of kScaleBlock samples holding k and the
+// blocks either side: the scale follows the channel where its noise changes (a
+// coast's back-EMF carries commutation ripple that the supply-held run before it
+// and the rest after it do not; one scale for the whole channel flagged the ripple's
+// peaks by the hundred).
+std::vector<double> LocalLimits(const std::vector<double>& magnitudes, double floor) {
+  const std::size_t n = magnitudes.size();
+  const std::size_t blocks = (n + kScaleBlock - 1) / kScaleBlock;
+  std::vector<double> block_scale(blocks);
+  for (std::size_t b = 0; b < blocks; ++b) {
+    const auto begin = magnitudes.begin() + static_cast<std::ptrdiff_t>(b * kScaleBlock);
+    const auto end = magnitudes.begin() + static_cast<std::ptrdiff_t>(std::min(n, (b + 1) * kScaleBlock));
+    block_scale[b] = kMadToSigma * Median(std::vector<double>(begin, end));
+  }
+  std::vector<double> limits(n);
+  for (std::size_t k = 0; k < n; ++k) {
+    const std::size_t b = k / kScaleBlock;
+    double scale = block_scale[b];
+    if (b > 0) scale = std::max(scale, block_scale[b - 1]);
+    if (b + 1 < blocks) scale = std::max(scale, block_scale[b + 1]);
+    limits[k] = std::max(kOutlierScales * scale, floor);
+  }
+  return limits;
+}
 
 Scan ScanChannel(const std::vector<double>& x) {
   const std::size_t n = x.size();
@@ -58,26 +83,36 @@ Scan ScanChannel(const std::vector<double>& x) {
     }
   }
   // d has median ≈ 0 for any smooth signal, so MAD(d) is the median of |d|.
-  scan.limit = kOutlierScales * std::max(kMadToSigma * Median(magnitudes), SmallestStep(x));
+  scan.floor = kOutlierScales * SmallestStep(x);
+  scan.limit = LocalLimits(magnitudes, scan.floor);
   return scan;
 }
 
-// Samples near a level change of the channel: the medians of the kEdgeNeighbours
-// readings either side differ by more than its limit beyond what the local slope
-// (the median first difference around the sample) explains. The windows are wide
-// enough that a run of bad readings is a minority in them, so a dropout is no
-// edge, and a steep ramp (a fast coast, a current rise) is not one either.
+// Samples near a level change of the channel. E_k is how far the medians of the
+// kEdgeNeighbours readings either side differ beyond what the local slope (the
+// median first difference around the sample) explains; a level change is an E_k
+// beyond kOutlierScales of E's own robust scale (so coloured noise, whose slow
+// wander moves window medians apart far more than it moves one reading from its
+// neighbours, is not taken for edges), and beyond the channel's outlier limit.
+// The windows are wide enough that a run of bad readings is a minority in them,
+// so a dropout is no edge, and a steep ramp (a fast coast, a current rise) is not
+// one either.
 void MarkEdges(const std::vector<double>& x, const Scan& scan, std::vector<bool>* edges) {
   const std::size_t n = x.size();
   const std::size_t w = kEdgeNeighbours;
-  std::vector<double> scratch, changes;
+  if (n < 2 * w + 1) return;
+  std::vector<double> scratch, changes, excess(n, 0.0), magnitudes;
   for (std::size_t k = w; k + w < n; ++k) {
     const double left = MedianOf(x, k - w, k, n, &scratch), right = MedianOf(x, k + 1, k + w + 1, n, &scratch);
     changes.clear();
     for (std::size_t j = k - w; j < k + w; ++j) changes.push_back(x[j + 1] - x[j]);
     const double slope = Median(changes);  // per sample
-    // The windows' medians sit (w + 1) samples either side of k on a ramp.
-    if (!(std::abs(right - left - slope * static_cast<double>(w + 1)) > scan.limit)) continue;
+    excess[k] = right - left - slope * static_cast<double>(w + 1);  // the windows' medians sit w + 1 samples apart
+    magnitudes.push_back(std::abs(excess[k]));
+  }
+  const std::vector<double> limits = LocalLimits(magnitudes, scan.floor);  // excess[k] sits at magnitudes[k − w]
+  for (std::size_t k = w; k + w < n; ++k) {
+    if (!(std::abs(excess[k]) > std::max(limits[k - w], scan.limit[k]))) continue;
     for (std::size_t j = k - kOutlierNeighbours; j <= k + kOutlierNeighbours; ++j) (*edges)[j] = true;
   }
 }
@@ -86,13 +121,13 @@ std::vector<std::size_t> Outliers(const Scan& scan, const std::vector<double>& x
   const std::size_t n = x.size();
   const std::size_t w = kOutlierNeighbours;
   std::vector<std::size_t> outliers;
-  if (!(scan.limit > 0.0)) return outliers;
   for (std::size_t k = w; k + w < n; ++k) {
-    if (edges[k] || !(std::abs(scan.departure[k]) > scan.limit)) continue;
+    const double limit = scan.limit[k];
+    if (edges[k] || !(limit > 0.0) || !(std::abs(scan.departure[k]) > limit)) continue;
     const double sign = scan.departure[k] > 0.0 ? 1.0 : -1.0;
     const double left = sign * (x[k] - scan.left[k]), right = sign * (x[k] - scan.right[k]);
     // Far from both sides, in the same direction, and farther from each than the sides are apart.
-    if (left > 0.5 * scan.limit && right > 0.5 * scan.limit &&
+    if (left > 0.5 * limit && right > 0.5 * limit &&
         std::abs(scan.left[k] - scan.right[k]) < std::min(left, right))
       outliers.push_back(k);
   }

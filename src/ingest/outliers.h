@@ -14,8 +14,11 @@
 // neighbours on each side,
 //     d_k = x_k − median(x_{k−w} … x_{k+w} without x_k),
 //     d_L = x_k − median(x_{k−w} … x_{k−1}),   d_R = x_k − median(x_{k+1} … x_{k+w}),
-// and the scale S = 1.4826·MAD(d) of the whole channel (the normal-consistent
-// median absolute deviation), floored at the channel's reading step. x_k is
+// and the scale S = 1.4826·MAD(d) (the normal-consistent median absolute
+// deviation) over the block of kScaleBlock samples around k and the blocks either
+// side — local, because a channel's noise changes along a log (commutation ripple
+// rides on a coast's back-EMF, not on the supply-held run before it) — floored at
+// the channel's reading step. x_k is
 // an outlier when |d_k| > kOutlierScales·S and x_k departs from BOTH sides,
 // in the same direction, by more than half that, and by more than the two
 // sides' medians differ from each other: a lone spike does, the first sample
@@ -51,6 +54,10 @@ namespace coilspin {
 
 // Neighbours on each side (w): runs of up to 2 bad readings are found.
 inline constexpr std::size_t kOutlierNeighbours = 3;
+
+// The blocks over which the scale S is taken: long enough for a median of |d| to be
+// steady (its relative standard error ≈ 1.2/√64 ≈ 15 %), short beside a log (common practice).
+inline constexpr std::size_t kScaleBlock = 64;
 
 // Level changes (edges) are judged on the medians of this many readings either
 // side: a run of up to w − 1 bad readings is a minority there, so a dropout is

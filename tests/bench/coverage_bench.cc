@@ -22,6 +22,10 @@
 //       coarse current ADC and winding warm-up on some benches. Same scoring;
 //       the footer adds every bench's levels, every exception and a tally of
 //       every warning, note and not-identified reason.
+//   coverage_bench dump real|real-nostep MOTOR BENCH FOLDER
+//       Writes the logs of one real-rig bench (motor index, bench index) as CSV
+//       files into FOLDER, as the fitters see them (outliers set aside), for
+//       looking at a fit that went wrong with `coilspin fit`.
 //   coverage_bench real-nostep [benches per motor, default 25]
 //       The same without steps: locked-rotor plateaus, no-load and spin-down
 //       only (no capture, no free-shaft step); L is not scored.
@@ -226,6 +230,7 @@ int Usage() {
                "usage: coverage_bench joint [benches per motor, default %d]\n"
                "       coverage_bench real|real-nostep [benches per motor, default %d]\n"
                "       coverage_bench step wald|profile|bootstrap [benches per motor, default %d]\n"
+               "       coverage_bench dump real|real-nostep MOTOR BENCH FOLDER\n"
                "       coverage_bench N   (= joint N)\n",
                kDefaultJointBenches, kDefaultJointBenches, kDefaultStepBenches);
   return 2;
@@ -292,6 +297,23 @@ int main(int argc, char** argv) {
              return joint::FitMotor(bench::JointBench(m, kJointSeedBase + kSeedStride * k, scale),
                                     OptionsFor(m, bench::kJointEncoderCountsPerRev));
            });
+    return 0;
+  }
+  if (mode == "dump" && argc == 6) {  // dump real|real-nostep MOTOR BENCH FOLDER: one bench's logs as CSV
+    const bool with_steps = std::string(argv[2]) == "real";
+    const std::vector<bench::Motor> motors = bench::JointMotors();
+    const auto index = [](const char* text) {  // 0-based, as the footer's "#k"
+      const std::optional<int> n = Count((std::string("1") + text).c_str());
+      return n && text[0] >= '0' && text[0] <= '9' ? std::optional<int>(std::stoi(text)) : std::nullopt;
+    };
+    const std::optional<int> motor = index(argv[3]), k = index(argv[4]);
+    if (!motor || !k || *motor >= static_cast<int>(motors.size())) return Usage();
+    const std::uint64_t seed = kRealSeedBase + kMotorSeedStride * static_cast<std::uint64_t>(*motor) +
+                               kSeedStride * static_cast<std::uint64_t>(*k);
+    for (const joint::TestLog& t : bench::RealRigSession(motors[*motor], seed, with_steps))
+      bench::WriteCsv(t.log, std::string(argv[5]) + "/" + t.log.path + ".csv");
+    std::printf("%s #%d: %s\n", motors[*motor].name, *k,
+                bench::Describe(bench::DrawRig(motors[*motor], seed)).c_str());
     return 0;
   }
   if (mode == "real" || mode == "real-nostep") {

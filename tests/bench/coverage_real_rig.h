@@ -111,6 +111,26 @@ inline std::vector<joint::TestLog> RealRigSession(const Motor& m, std::uint64_t 
       with_steps);
 }
 
+// A log as CSV (SI units), for `coverage_bench dump`.
+inline void WriteCsv(const BenchLog& log, const std::string& path) {
+  std::FILE* file = std::fopen(path.c_str(), "w");
+  if (file == nullptr) return;
+  std::fprintf(file, "time [s]");
+  const std::pair<const std::vector<double>*, const char*> channels[] = {
+      {&log.voltage_V, "voltage [V]"}, {&log.current_A, "current [A]"}, {&log.speed_rad_s, "speed [rad/s]"},
+      {&log.position_rad, "position [rad]"}, {&log.temperature_degC, "temperature [degC]"}};
+  for (const auto& [x, header] : channels)
+    if (!x->empty()) std::fprintf(file, ",%s", header);
+  std::fprintf(file, "\n");
+  for (std::size_t k = 0; k < log.size(); ++k) {
+    std::fprintf(file, "%.9g", log.time_s[k]);
+    for (const auto& [x, header] : channels)
+      if (!x->empty()) std::fprintf(file, ",%.12g", (*x)[k]);
+    std::fprintf(file, "\n");
+  }
+  std::fclose(file);
+}
+
 // One line of the levels, for the benchmark's footer.
 inline std::string Describe(const RigLevels& r) {
   char text[320];
