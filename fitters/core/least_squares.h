@@ -176,6 +176,8 @@ struct GroupStatistics {
   // the group; 1 for groups too short to estimate it), and the lags it summed.
   double integrated_autocorrelation_time = 1.0;
   int autocorrelation_lags = 0;
+  // The leverage h_k of each residual (group_covariance.h); empty without a covariance.
+  Eigen::VectorXd leverage;
 };
 
 struct FitResult {

@@ -113,6 +113,7 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
       statistics.residual_variance = breakdown.measured_residual_variance[g];
       statistics.own_residual_variance = breakdown.residual_variance[g];
       statistics.degrees_of_freedom = breakdown.residual_degrees_of_freedom[g];
+      if (g < breakdown.leverage.size()) statistics.leverage = breakdown.leverage[g];
       statistics.fitted_degrees_of_freedom = breakdown.fitted_degrees_of_freedom[g];
       for (Eigen::Index k = 0; k < p; ++k) {
         const double total = breakdown.variance_parts.col(k).sum();

@@ -113,7 +113,8 @@ std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula
     added = se * se;
   }
   const double replicate_variance = b.std_error * b.std_error;
-  const double k = replicate_variance > 0.0 ? std::sqrt(1.0 + added / replicate_variance) : 1.0;
+  const double k = (replicate_variance > 0.0 ? std::sqrt(1.0 + added / replicate_variance) : 1.0) *
+                   core::SmallSampleStretch(q->degrees_of_freedom, e.confidence);  // Wald ν of the quantity
   q->std_error = std::sqrt(replicate_variance + added);
   q->ci_low = b.value - k * (b.value - b.ci_low);
   q->ci_high = b.value + k * (b.ci_high - b.value);
