@@ -148,6 +148,13 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   }
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
+  const std::vector<std::string> known = joint::RequirableKeys();
+  for (const auto& key : a.required)
+    if (std::find(known.begin(), known.end(), key) == known.end()) {
+      std::string list;
+      for (const auto& k : known) list += (list.empty() ? "" : ", ") + k;
+      throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--require " + key + ": no such key; a result holds " + list);
+    }
 
   std::vector<joint::TestLog> logs;
   for (const auto& p : planned) {
@@ -183,17 +190,30 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
     if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
   }
-  std::vector<std::pair<std::string, std::string>> undetermined;  // key, reason
-  for (const auto& key : required)
-    for (const auto& [missing, reason] : estimate.not_identified)
-      if (missing == key && std::find_if(undetermined.begin(), undetermined.end(),
-                                         [&](const auto& u) { return u.first == key; }) == undetermined.end())
-        undetermined.push_back({key, reason});
+  std::vector<std::pair<std::string, std::string>> undetermined;  // key or file, the sentence on stderr
+  const auto present = [&](const std::string& key) {
+    for (const auto* section : {&estimate.parameters, &estimate.ratios, &estimate.derived})
+      for (const auto& q : *section)
+        if (q.key == key) return true;
+    return false;
+  };
+  for (const auto& key : required) {
+    if (present(key) || std::find_if(undetermined.begin(), undetermined.end(),
+                                     [&](const auto& u) { return u.first == key; }) != undetermined.end())
+      continue;
+    std::string reason = "the given tests do not determine it";
+    for (const auto& [missing, why] : estimate.not_identified)
+      if (missing == key) reason = why;
+    undetermined.push_back({key, key + " not determined: " + reason});
+  }
+  for (const auto& t : estimate.tests)  // a test given that added nothing to the fit
+    if (!t.contributed)
+      undetermined.push_back({t.file, t.file + ": the " + t.kind + " log contributed nothing to the fit (" + t.method + ")"});
 
   if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::ResultJson(estimate));
   if (!a.quiet) out << output::ParameterTable(estimate);
   // Why the exit status is 1, on stderr whether or not the table was printed.
-  for (const auto& [key, reason] : undetermined) std::cerr << "coilspin: " << key << " not determined: " << reason << "\n";
+  for (const auto& [what, sentence] : undetermined) std::cerr << "coilspin: " << sentence << "\n";
   return undetermined.empty() ? kSuccess : kUndetermined;
 }
 

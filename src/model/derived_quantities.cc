@@ -59,6 +59,16 @@ std::string DerivedNote(const std::string& key) {
   return "";
 }
 
+std::vector<std::string> DerivedKeys() {
+  ParameterValues all;
+  for (const char* key : {"resistance", "inductance", "back_emf_constant", "torque_constant", "inertia",
+                          "viscous_friction", "coulomb_friction", "brush_drop"})
+    all[key] = 1.0;  // any values: only which formulas apply matters here
+  std::vector<std::string> keys;
+  for (const auto& formula : DerivedFormulas(all, 1.0)) keys.push_back(formula.key);
+  return keys;
+}
+
 std::vector<DerivedFormula> DerivedFormulas(const ParameterValues& available, double voltage_V) {
   const double v = voltage_V;
   std::vector<DerivedFormula> all = {

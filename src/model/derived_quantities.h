@@ -42,6 +42,9 @@ std::vector<DerivedFormula> DerivedFormulas(const ParameterValues& available, do
 // stall torques); empty otherwise.
 std::string DerivedNote(const std::string& key);
 
+// The key of every formula (all parameters present).
+std::vector<std::string> DerivedKeys();
+
 // Shaft torque τ(ω) at V; friction terms are used when present.
 double ShaftTorque(const ParameterValues& p, double voltage_V, double speed_rad_s);
 // No-load speed at V (with friction when present).

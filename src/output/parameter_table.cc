@@ -72,6 +72,7 @@ std::string Row(const QuantityEstimate& q, const Widths& w) {
   std::string row = Line(CellsOf(q), w);
   if (!q.basis.empty()) row += "      basis: " + q.basis + "\n";
   if (!q.note.empty()) row += "      " + q.note + "\n";
+  for (const auto& a : q.assumes) row += "      assumes " + a + "\n";
   return row;
 }
 
@@ -95,7 +96,7 @@ std::string ParameterTable(const MotorEstimate& e) {
   std::snprintf(title, sizeof title, "%.4g %% intervals (two-sided, %s%s)", 100.0 * e.confidence, kind.c_str(),
                 loss.c_str());
   out << "coilspin fit" << (e.motor_label.empty() ? "" : " of " + e.motor_label) << " — " << title << "\n\n";
-  const Widths widths = WidthsOf({&e.parameters, &e.ratios, &e.derived});
+  const Widths widths = WidthsOf({&e.parameters, &e.ratios, &e.derived, &e.sensor_offsets});
   Section(out, "parameters", e.parameters, widths);
   if (!e.ratios.empty()) out << "\n";
   Section(out, "ratios", e.ratios, widths);
@@ -109,6 +110,8 @@ std::string ParameterTable(const MotorEstimate& e) {
       break;
     }
   Section(out, derived_title.c_str(), e.derived, widths);
+  if (!e.sensor_offsets.empty()) out << "\n";
+  Section(out, "sensor zero readings (subtracted from the logs)", e.sensor_offsets, widths);
   if (!e.not_identified.empty()) {
     out << "\nnot identified\n";
     for (const auto& [key, reason] : e.not_identified) out << "  " << key << ": " << reason << "\n";

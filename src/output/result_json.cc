@@ -23,6 +23,7 @@ Json QuantityJson(const QuantityEstimate& q) {
   if (q.at_voltage_V) j["at_voltage"] = *q.at_voltage_V;
   if (q.at_temperature_degC) j["at_temperature_degC"] = *q.at_temperature_degC;
   if (!q.note.empty()) j["note"] = q.note;
+  if (!q.assumes.empty()) j["assumes"] = q.assumes;
   return j;
 }
 
@@ -55,6 +56,7 @@ Json TestJson(const TestSummary& t) {
   Json set_aside = Json::object();
   for (const auto& [channel, lines] : t.set_aside) set_aside[channel] = {{"count", lines.size()}, {"lines", lines}};
   j["set_aside"] = set_aside;
+  j["contributed"] = t.contributed;
   j["warnings"] = t.warnings;
   return j;
 }
@@ -91,6 +93,7 @@ std::string ResultJson(const MotorEstimate& e) {
   j["covariance"] = MatrixJson(result::FullCovariance(e));
   j["correlation"] = MatrixJson(result::FullCorrelation(e));
   j["derived"] = QuantitiesJson(e.derived);
+  j["sensor_offsets"] = QuantitiesJson(e.sensor_offsets);
   if (e.torque_speed) {
     Json points = Json::array();
     for (const auto& p : e.torque_speed->points)

@@ -135,6 +135,7 @@ QuantityEstimate ReadQuantity(const std::string& key, const Node& n) {
   if (auto v = n.Find("at_voltage")) q.at_voltage_V = v->Number();
   if (auto t = n.Find("at_temperature_degC")) q.at_temperature_degC = t->Number();
   if (auto note = n.Find("note")) q.note = note->Text();
+  if (auto assumes = n.Find("assumes")) q.assumes = assumes->Texts();
   return q;
 }
 
@@ -210,6 +211,7 @@ TestSummary ReadTest(const Node& n) {
       t.set_aside.push_back({channel, numbers});
     }
   t.warnings = n.At("warnings").Texts();
+  if (auto contributed = n.Find("contributed")) t.contributed = contributed->Flag();
   return t;
 }
 
@@ -325,6 +327,7 @@ ResultFile ParseResult(const std::string& text, const std::string& file) {
     }
   }
   if (auto derived = root.Find("derived")) e.derived = ReadQuantities(*derived, result.format_version);
+  if (auto offsets = root.Find("sensor_offsets")) e.sensor_offsets = ReadQuantities(*offsets, result.format_version);
   if (auto line = root.Find("torque_speed")) e.torque_speed = ReadTorqueSpeed(*line);
   if (auto consistency = root.Find("consistency")) e.consistency = ReadConsistency(*consistency);
   const Node tests = root.At("tests").Array();

@@ -88,7 +88,7 @@ TEST(InputNoiseAutocovariance, ProbesAgreeWithTheClosedForm) {
   const LagBench bench = MakeLagBench(kSamples, 0.1, 0.0, 3);
   const std::vector<double> values = {kGain};
   const InputNoiseModel model = ProbedInputNoise(LagResidual{&bench.logged_input, &bench.output},
-                                                 &LagResidual::input, {0}, kSamples, kInputSigma);
+                                                 &LagResidual::input, {0}, kSamples, NoiseLevel{kInputSigma});
   const LaggedSums probed = model(values, 3);
   ASSERT_EQ(probed.size(), 4u);
   const std::vector<double> exact = ClosedFormSums(kSamples);
@@ -101,8 +101,28 @@ TEST(InputNoiseAutocovariance, ProbesAgreeWithTheClosedForm) {
   EXPECT_EQ(model(values, 3), probed);
   // No noise on the input: nothing to explain.
   EXPECT_TRUE(ProbeInputNoise([](const std::vector<double>&, std::vector<double>*) { return true; },
-                              bench.logged_input, 0.0, 1)
+                              bench.logged_input, NoiseLevel{0.0}, 1)
                   .empty());
+}
+
+TEST(InputNoiseAutocovariance, ColouredInputNoiseIsProbedAsColoured) {
+  // An input channel whose noise is AR(1) with lag-1 correlation φ reaches the lag's
+  // output with the stationary variance of two first-order stages in cascade,
+  //     Var δy = b²·σ_v²·(1 + a·φ)/((1 − a²)·(1 − a·φ)),   b = (1 − a)·g
+  // (an ARMA(2,1) variance; Box & Jenkins ch. 3 — from memory), which is
+  // (1 + aφ)/(1 − aφ) = 9.5 times white noise's at a = φ = 0.9: the white probes of
+  // the first version missed that factor.
+  constexpr int kSamples = 20000;
+  constexpr double kPhi = 0.9;
+  const LagBench bench = MakeLagBench(kSamples, 0.1, 0.0, 4);
+  const InputNoiseModel model = ProbedInputNoise(LagResidual{&bench.logged_input, &bench.output},
+                                                 &LagResidual::input, {0}, kSamples, NoiseLevel{kInputSigma, kPhi});
+  const LaggedSums probed = model({kGain}, 0);
+  const double b = (1.0 - kPole) * kGain;
+  const double variance = b * b * kInputSigma * kInputSigma * (1.0 + kPole * kPhi) /
+                          ((1.0 - kPole * kPole) * (1.0 - kPole * kPhi));
+  // Monte Carlo error of a_0: √(2τ/(nK)) with τ ≈ 40 samples here ≈ 1.6 %; 8 % covers the start from rest too.
+  EXPECT_NEAR(probed[0] / (kSamples * variance), 1.0, 0.08);
 }
 
 // Residuals e − s·δy: output noise e (unit variance, AR(1) with coefficient phi)
@@ -169,7 +189,7 @@ TEST(InputNoiseAutocovariance, FitLeavesTheInputShareOutOfTheGroupTerm) {
     LeastSquaresProblem problem;
     const int g = problem.AddParameter({"gain", 1.0, 0.0, {}, {}, false});
     GroupSpec spec{"output", kOutputSigma};
-    if (apart) spec.input_noise = ProbedInputNoise(residual, &LagResidual::input, {g}, kSamples, kInputSigma);
+    if (apart) spec.input_noise = ProbedInputNoise(residual, &LagResidual::input, {g}, kSamples, NoiseLevel{kInputSigma});
     problem.AddResiduals(problem.AddGroup(spec), {g}, kSamples, residual);
     return problem.Solve(SolveOptions{});
   };
@@ -211,7 +231,7 @@ TEST(InputNoiseAutocovariance, BiasCorrectionUndoesTheAttenuationOfAGain) {
     LeastSquaresProblem problem;
     const int g = problem.AddParameter({"gain", 1.0, 0.0, {}, {}, false});
     GroupSpec spec{"output", kOutputSigma};
-    spec.input_noise = ProbedInputNoise(residual, &LagResidual::input, {g}, kSamples, kInputSigma);
+    spec.input_noise = ProbedInputNoise(residual, &LagResidual::input, {g}, kSamples, NoiseLevel{kInputSigma});
     problem.AddResiduals(problem.AddGroup(spec), {g}, kSamples, residual);
     const FitResult fit = problem.Solve(SolveOptions{});
     ASSERT_TRUE(fit.usable);
