@@ -227,8 +227,8 @@ void PrintFooter(const Run& run, int motors, int benches, double wall_s, double 
 
 int Usage() {
   std::fprintf(stderr,
-               "usage: coverage_bench joint [benches per motor, default %d]\n"
-               "       coverage_bench real|real-nostep [benches per motor, default %d]\n"
+               "usage: coverage_bench joint [benches per motor, default %d] [wald|profile|bootstrap]\n"
+               "       coverage_bench real|real-nostep [benches per motor, default %d] [wald|profile|bootstrap]\n"
                "       coverage_bench step wald|profile|bootstrap [benches per motor, default %d]\n"
                "       coverage_bench dump real|real-nostep MOTOR BENCH FOLDER\n"
                "       coverage_bench N   (= joint N)\n",
@@ -274,10 +274,18 @@ void RunAll(const std::vector<bench::Motor>& motors, int benches, const std::vec
   PrintFooter(run, static_cast<int>(motors.size()), benches, wall_s, cpu_s);
 }
 
-joint::MotorFitOptions OptionsFor(const bench::Motor& m, int counts_per_rev) {
+joint::MotorFitOptions OptionsFor(const bench::Motor& m, int counts_per_rev,
+                                  joint::IntervalMethod method = joint::IntervalMethod::kWald) {
   joint::MotorFitOptions options;
   if (m.encoder) options.counts_per_rev = counts_per_rev;  // as a user passes --counts-per-rev
+  options.intervals.method = method;
+  options.intervals.replicates = kBootstrapReplicates;
   return options;
+}
+
+// The optional interval method after the bench count (wald when absent); nullopt when misspelled.
+std::optional<joint::IntervalMethod> MethodArgument(int argc, char** argv, int at) {
+  return argc > at ? joint::IntervalMethodFromString(argv[at]) : joint::IntervalMethod::kWald;
 }
 
 }  // namespace
@@ -287,15 +295,16 @@ int main(int argc, char** argv) {
   if (mode == "joint" || Count(mode.c_str())) {
     const char* count_text = Count(mode.c_str()) ? argv[1] : (argc > 2 ? argv[2] : nullptr);
     const std::optional<int> benches = count_text ? Count(count_text) : kDefaultJointBenches;
-    if (!benches) return Usage();
-    std::printf("joint fit, Wald intervals\n\n");
+    const std::optional<joint::IntervalMethod> method = MethodArgument(argc, argv, 3);
+    if (!benches || !method) return Usage();
+    std::printf("joint fit, %s intervals\n\n", joint::IntervalMethodName(*method));
     RunAll(bench::JointMotors(), *benches,
            {"resistance", "inductance", "brush_drop", "back_emf_constant", "torque_constant", "inertia",
             "viscous_friction", "coulomb_friction"},
-           [](const bench::Motor& m, int k) {
+           [&](const bench::Motor& m, int k) {
              const double scale = (k % kNoisyEvery == 0) ? kNoisyScale : 1.0;
              return joint::FitMotor(bench::JointBench(m, kJointSeedBase + kSeedStride * k, scale),
-                                    OptionsFor(m, bench::kJointEncoderCountsPerRev));
+                                    OptionsFor(m, bench::kJointEncoderCountsPerRev, *method));
            });
     return 0;
   }
@@ -319,10 +328,12 @@ int main(int argc, char** argv) {
   if (mode == "real" || mode == "real-nostep") {
     const bool with_steps = mode == "real";
     const std::optional<int> benches = argc > 2 ? Count(argv[2]) : kDefaultJointBenches;
-    if (!benches) return Usage();
+    const std::optional<joint::IntervalMethod> method = MethodArgument(argc, argv, 3);
+    if (!benches || !method) return Usage();
     const std::vector<bench::Motor> motors = bench::JointMotors();
-    std::printf("real-rig sessions%s, joint fit, Wald intervals\n\n",
-                with_steps ? "" : " without steps (locked-rotor plateaus, no-load, spin-down)");
+    std::printf("real-rig sessions%s, joint fit, %s intervals\n\n",
+                with_steps ? "" : " without steps (locked-rotor plateaus, no-load, spin-down)",
+                joint::IntervalMethodName(*method));
     std::vector<std::string> keys = {"resistance", "inductance", "brush_drop", "back_emf_constant",
                                      "torque_constant", "inertia", "viscous_friction", "coulomb_friction"};
     if (!with_steps) keys.erase(keys.begin() + 1);  // L needs a step of either kind
@@ -333,9 +344,9 @@ int main(int argc, char** argv) {
     };
     RunAll(
         motors, *benches, keys,
-        [with_steps, &seed_of](const bench::Motor& m, int k) {
+        [with_steps, &seed_of, &method](const bench::Motor& m, int k) {
           return joint::FitMotor(bench::RealRigSession(m, seed_of(m, k), with_steps),
-                                 OptionsFor(m, bench::kJointEncoderCountsPerRev));
+                                 OptionsFor(m, bench::kJointEncoderCountsPerRev, *method));
         },
         true);
     std::printf("bench levels (the same for real and real-nostep):\n");
@@ -355,9 +366,7 @@ int main(int argc, char** argv) {
          {"resistance", "inductance", "back_emf_constant", "torque_constant", "inertia", "viscous_friction",
           "coulomb_friction"},
          [&](const bench::Motor& m, int k) {
-           joint::MotorFitOptions options = OptionsFor(m, bench::kStepEncoderCountsPerRev);
-           options.intervals.method = *method;
-           options.intervals.replicates = kBootstrapReplicates;
+           const joint::MotorFitOptions options = OptionsFor(m, bench::kStepEncoderCountsPerRev, *method);
            return joint::FitMotor(bench::StepBench(m, kStepSeedBase + kSeedStride * k), options);
          });
   return 0;
