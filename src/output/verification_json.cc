@@ -27,6 +27,7 @@ Json ExplanationJson(const verify::Explanation& e, const verify::Datasheet& shee
   }
   if (e.cause == Cause::kUnitSlip) j["meant_unit"] = e.meant_unit;
   if (e.cause == Cause::kWindingConvention) j["convention"] = e.convention.name;
+  j["whole_sheet"] = e.whole_sheet;
   j["text"] = ExplanationText(e, sheet);
   return j;
 }

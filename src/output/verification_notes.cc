@@ -124,9 +124,13 @@ std::string RelationNote(const verify::RelationCheck& c, const verify::Datasheet
   std::string text = predicted + against + ": no figures within the tolerances satisfy it (mismatch " +
                      ShortNumber(kPercentPerUnit * c.mismatch, kPercentDigits) + " %)";
   if (c.explained_by.empty()) return text + "; no single line explains it by a known cause";
-  if (c.explained_by.size() == 1) return text + ". Explained by one line alone: " + ExplanationText(c.explained_by[0], sheet);
   std::vector<std::string> each;
   for (const verify::Explanation& e : c.explained_by) each.push_back(ExplanationText(e, sheet));
+  if (!c.explained_by.front().whole_sheet) {
+    return text + ". No one line explains all the sheet's mismatches; this one could come from: " +
+           Joined(each, "; or ");
+  }
+  if (each.size() == 1) return text + ". Explained by one line alone: " + each.front();
   return text + ". Each of these alone would explain it, nearest first: " + Joined(each, "; or ");
 }
 

@@ -33,7 +33,7 @@ class SheetReader {
       if (allowed.count(std::string(key.str()))) continue;
       std::string list;
       for (const auto& a : allowed) list += (list.empty() ? "" : ", ") + a;
-      Fail(node.source(), where.empty() ? std::string(key.str()) : where + "." + std::string(key.str()),
+      Fail(key.source(), where.empty() ? std::string(key.str()) : where + "." + std::string(key.str()),
            "unknown key (expected one of: " + list + ")");
     }
   }
@@ -101,13 +101,14 @@ double Deviation(const SheetReader& reader, const toml::node& node, const std::s
   return f.value * f.factor_to_si;  // a difference: no offset
 }
 
-SpecLine ReadLine(const SheetReader& reader, const std::string& key, const toml::node& node) {
+SpecLine ReadLine(const SheetReader& reader, const toml::key& name, const toml::node& node) {
+  const std::string key(name.str());
   const std::string path = "spec." + key;
   const SpecKey* spec = FindSpecKey(key);
   if (!spec) {
     std::string list;
     for (const SpecKey& k : SpecKeys()) list += (list.empty() ? "" : ", ") + std::string(k.key);
-    reader.Fail(node.source(), path, "not a line coilspin can verify (the result file's keys: " + list + ")");
+    reader.Fail(name.source(), path, "not a line coilspin can verify (the result file's keys: " + list + ")");
   }
   const toml::table* fields = node.as_table();
   if (!fields) {
@@ -209,10 +210,14 @@ Datasheet ParseDatasheet(const std::string& text, const std::string& file) {
   if (const toml::node* t = head->get("reference_temperature")) {
     sheet.reference_temperature_degC =
         reader.ReadFigure(*t, "datasheet.reference_temperature", units::Dimension::kTemperature, false).Si();
+    if (!(*sheet.reference_temperature_degC + units::kCopperTemperatureConstant_degC > 0.0)) {
+      reader.Fail(t->source(), "datasheet.reference_temperature",
+                  "lies below the copper law's zero (-234.5 degC): R cannot be carried to it");
+    }
   }
   const toml::table* spec = root["spec"].as_table();
   if (!spec || spec->empty()) reader.Fail(top, "spec", "missing: the file needs a [spec] table with at least one line");
-  for (const auto& [key, node] : *spec) sheet.lines.push_back(ReadLine(reader, std::string(key.str()), node));
+  for (const auto& [key, node] : *spec) sheet.lines.push_back(ReadLine(reader, key, node));
   // The TOML table holds its keys sorted; the sheet keeps the file's order.
   std::stable_sort(sheet.lines.begin(), sheet.lines.end(),
                    [](const SpecLine& a, const SpecLine& b) { return a.line < b.line; });

@@ -171,10 +171,24 @@ bool AllConsistent(const std::vector<Relation>& relations, const std::string& ke
   return true;
 }
 
+// How many of the sheet's inconsistent relations are consistent under `f`.
+int Mended(const std::vector<Relation>& relations, const std::vector<bool>& inconsistent, const Figures& f,
+           double rated_V) {
+  int mended = 0;
+  for (std::size_t k = 0; k < relations.size(); ++k) {
+    if (!inconsistent[k]) continue;
+    const std::optional<Evaluated> e = Evaluate(relations[k], f, rated_V);
+    if (e && e->consistent) ++mended;
+  }
+  return mended;
+}
+
 std::vector<Explanation> Explain(const Relation& target, const std::vector<Relation>& relations,
-                                 const Datasheet& sheet, const Figures& figures) {
+                                 const std::vector<bool>& inconsistent, const Datasheet& sheet,
+                                 const Figures& figures) {
   struct Found {
-    double distance;
+    int mended;       // inconsistent relations of the sheet it mends (more is the better explanation)
+    double distance;  // |ln(y/f)| of the target relation after it (nearer is better)
     Explanation explanation;
   };
   std::vector<Found> found;
@@ -185,9 +199,20 @@ std::vector<Explanation> Explain(const Relation& target, const std::vector<Relat
       const Figures corrected = Apply(figures, key, c);
       if (!AllConsistent(relations, key, corrected, sheet.rated_voltage_V)) continue;
       const std::optional<Evaluated> e = Evaluate(target, corrected, sheet.rated_voltage_V);
-      found.push_back({e ? std::fabs(std::log(e->stated / e->predicted)) : 0.0, c.explanation});
+      found.push_back({Mended(relations, inconsistent, corrected, sheet.rated_voltage_V),
+                       e ? std::fabs(std::log(e->stated / e->predicted)) : 0.0, c.explanation});
     }
   }
+  if (found.empty()) return {};
+  // Only the corrections that mend the most of the sheet: one line that explains two
+  // mismatches is a better account than another that explains one of them.
+  const int most = std::max_element(found.begin(), found.end(), [](const Found& a, const Found& b) {
+                     return a.mended < b.mended;
+                   })->mended;
+  found.erase(std::remove_if(found.begin(), found.end(), [most](const Found& f) { return f.mended < most; }),
+              found.end());
+  const int all = static_cast<int>(std::count(inconsistent.begin(), inconsistent.end(), true));
+  for (Found& f : found) f.explanation.whole_sheet = f.mended == all;
   std::stable_sort(found.begin(), found.end(), [](const Found& a, const Found& b) { return a.distance < b.distance; });
   std::vector<Explanation> out;
   for (const Found& f : found) out.push_back(f.explanation);
@@ -215,6 +240,11 @@ std::vector<RelationCheck> CheckSheet(const Datasheet& sheet) {
   for (const SpecLine& line : sheet.lines) present.push_back(line.key);
   const std::vector<Relation> relations = RelationsFor(present);
   const Figures figures = FiguresOf(sheet);
+  std::vector<bool> inconsistent;
+  for (const Relation& r : relations) {
+    const std::optional<Evaluated> e = Evaluate(r, figures, sheet.rated_voltage_V);
+    inconsistent.push_back(e && !e->consistent);
+  }
   std::vector<RelationCheck> checks;
   for (const Relation& r : relations) {
     const std::optional<Evaluated> e = Evaluate(r, figures, sheet.rated_voltage_V);
@@ -229,7 +259,7 @@ std::vector<RelationCheck> CheckSheet(const Datasheet& sheet) {
     c.predicted_high = e->high;
     c.mismatch = e->mismatch;
     c.consistent = e->consistent;
-    if (!c.consistent) c.explained_by = Explain(r, relations, sheet, figures);
+    if (!c.consistent) c.explained_by = Explain(r, relations, inconsistent, sheet, figures);
     checks.push_back(std::move(c));
   }
   return checks;

@@ -19,9 +19,14 @@
 //                      of src/check/winding_conventions.h,
 //   another voltage    a line that depends on V printed for a common rated
 //                      voltage other than the sheet's (units::kCommonRatedVoltages_V)
-// — and the correction explains the mismatch when, with it, every relation that
-// line takes part in is consistent. All such corrections are listed, nearest
-// (smallest |ln(y/f)| after correction) first.
+// — and the correction can explain the mismatch when, with it, every relation
+// that line takes part in is consistent. Of these, the ones that mend the most
+// of the sheet's inconsistent relations are listed (one line explaining two
+// mismatches accounts for the sheet better than another explaining one),
+// nearest (smallest |ln(y/f)| after correction) first. A correction that makes
+// the whole sheet consistent explains it by one line alone ("whole_sheet");
+// when none does, the sheet has more than one fault, and the corrections
+// listed are only what could account for this relation.
 
 #include <string>
 #include <vector>
@@ -41,6 +46,7 @@ struct Explanation {
   int decimal_exponent = 0;        // decimal slip: 10^k
   check::MismatchFactor convention;  // winding convention: its factor (Kt/Ke) and the conventions that give it
   double voltage_V = 0.0;          // another voltage: the voltage the line fits
+  bool whole_sheet = false;        // with it, every relation of the sheet is consistent
 };
 
 // "unit-slip", "decimal-slip", "winding-convention", "another-voltage".
