@@ -93,6 +93,10 @@ void CheckDerived(const MotorEstimate& e, double voltage_V, LineCheck* check) {
   for (const std::string& parameter : uses) {
     if (!e.Find(parameter)) check->missing.push_back({parameter, ReasonFor(e, parameter)});
   }
+  if (check->missing.empty() && e.covariance.size() != e.correlation_names.size()) {
+    check->not_tested = LineCheck::NotTested::kNoInterval;  // no covariance to propagate
+    return;
+  }
   std::optional<QuantityEstimate> q;
   if (check->missing.empty()) {
     for (const model::DerivedFormula& f : model::DerivedFormulas(result::ValuesOf(e), voltage_V))
