@@ -181,6 +181,22 @@ TEST(BatchFit, AFailedMotorIsReportedAndTheOthersGoOn) {
   EXPECT_EQ(all_bad.status, 2) << all_bad.err;
 }
 
+TEST(BatchFit, WithADatasheetEachResultIsVerifiedAndTheLotPrinted) {
+  ScratchFolder folder("batch_datasheet");
+  const RunResult r = RunCoilspin("fit " + Quoted(kLot + "/motor-0101.toml") + " " + Quoted(kLot + "/motor-0104.toml") +
+                                      " --out-dir out --datasheet " + Quoted(kSheetRevB),
+                                  folder.path());
+  EXPECT_EQ(r.status, 1) << r.err;  // 0104's weak magnet
+  EXPECT_NE(r.out.find("lot of 2 motors"), std::string::npos) << r.out;
+  EXPECT_NE(r.err.find("datasheet line torque_constant: fail"), std::string::npos) << r.err;
+  for (const char* name : {"motor-0101.json", "motor-0104.json"}) {
+    const fs::path result = folder.path() / "out" / name;
+    ExpectValidResultFile(result);
+    const auto j = nlohmann::json::parse(Slurp(result));
+    EXPECT_EQ(j["verification"]["verdict"], std::string(name) == "motor-0101.json" ? "pass" : "fail") << name;
+  }
+}
+
 TEST(BatchFit, UsageMistakesExitTwoBeforeAnyFit) {
   ScratchFolder folder("batch_usage");
   const std::string a = Quoted(kLot + "/motor-0101.toml"), b = Quoted(kLot + "/motor-0102.toml");
