@@ -19,4 +19,8 @@ std::string DemoSessionPath() {
   return (fs::path(COILSPIN_DEMO_DIR) / kSession).string();
 }
 
+std::string DemoDatasheetPath() {
+  return (std::filesystem::path(DemoSessionPath()).parent_path() / "datasheet.toml").string();
+}
+
 }  // namespace coilspin::cli

@@ -16,4 +16,7 @@ namespace coilspin::cli {
 // The session file's path, e.g. "/usr/share/coilspin/demo/session.toml".
 std::string DemoSessionPath();
 
+// The demo motor's datasheet, beside the session file ("…/demo/datasheet.toml").
+std::string DemoDatasheetPath();
+
 }  // namespace coilspin::cli

@@ -8,6 +8,7 @@
 
 #include "fitters/core/bootstrap_progress.h"
 #include "fitters/joint/motor_fit.h"
+#include "src/cli/batch_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
 #include "src/cli/session_file.h"
@@ -17,6 +18,9 @@
 #include "src/output/atomic_file.h"
 #include "src/output/parameter_table.h"
 #include "src/output/result_json.h"
+#include "src/output/verification_json.h"
+#include "src/output/verification_table.h"
+#include "src/verify/datasheet_file.h"
 
 namespace coilspin::cli {
 namespace {
@@ -44,7 +48,8 @@ std::optional<T> FirstOf(const std::optional<T>& flag, const std::optional<T>& s
 }  // namespace
 
 void DeclareFitOptions(CLI::App* c, FitArguments* a) {
-  c->add_option("session", a->session_path, "Session file (TOML) naming the motor, bench settings and test logs")
+  c->add_option("session", a->session_paths,
+                "Session file (TOML) naming the motor, bench settings and test logs; several with --out-dir")
       ->check(CLI::ExistingFile);
   c->add_option("--locked-rotor", a->locked_rotor_files, "Locked-rotor log (plateaus or a step capture); repeatable");
   c->add_option("--no-load", a->no_load_files, "No-load log (free shaft, settled supply levels); repeatable");
@@ -84,10 +89,16 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--require", a->required,
                 "Parameter that must be determined (else exit status 1), e.g. --require inductance");
   c->add_option("--json", a->json_path, "Write the result file (coilspin.result/2) here, atomically");
+  c->add_option("--datasheet", a->datasheet_path,
+                "Verify the fitted motor against this datasheet (TOML): the table gains a verification section, "
+                "the result file a \"verification\" block; exit status 1 when a line does not pass");
+  c->add_option("--out-dir", a->out_dir,
+                "Fit every session given (a lot of motors) on all cores, one result file per session in this "
+                "folder, named after the session file");
   c->add_flag("--quiet", a->quiet, "Print no table");
 }
 
-int RunFit(const FitArguments& a, std::ostream& out) {
+FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, const std::string& result_name) {
   std::optional<Session> session;
   if (!a.session_path.empty()) session = LoadSession(a.session_path);
 
@@ -190,7 +201,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
     if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
   }
-  std::vector<std::pair<std::string, std::string>> undetermined;  // key or file, the sentence on stderr
+  FitOutcome outcome;
   const auto present = [&](const std::string& key) {
     for (const auto* section : {&estimate.parameters, &estimate.ratios, &estimate.derived})
       for (const auto& q : *section)
@@ -198,23 +209,62 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     return false;
   };
   for (const auto& key : required) {
-    if (present(key) || std::find_if(undetermined.begin(), undetermined.end(),
-                                     [&](const auto& u) { return u.first == key; }) != undetermined.end())
+    if (present(key) || std::find_if(outcome.undetermined.begin(), outcome.undetermined.end(),
+                                     [&](const auto& u) { return u.first == key; }) != outcome.undetermined.end())
       continue;
     std::string reason = "the given tests do not determine it";
     for (const auto& [missing, why] : estimate.not_identified)
       if (missing == key) reason = why;
-    undetermined.push_back({key, key + " not determined: " + reason});
+    outcome.undetermined.push_back({key, key + " not determined: " + reason});
   }
   for (const auto& t : estimate.tests)  // a test given that added nothing to the fit
     if (!t.contributed)
-      undetermined.push_back({t.file, t.file + ": the " + t.kind + " log contributed nothing to the fit (" + t.method + ")"});
+      outcome.undetermined.push_back(
+          {t.file, t.file + ": the " + t.kind + " log contributed nothing to the fit (" + t.method + ")"});
+  if (sheet) outcome.verification = verify::Verify(*sheet, {{result_name, estimate}});
+  outcome.estimate = std::move(estimate);
+  return outcome;
+}
 
-  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::ResultJson(estimate));
-  if (!a.quiet) out << output::ParameterTable(estimate);
+std::string ResultText(const FitOutcome& o) {
+  if (!o.verification) return output::ResultJson(o.estimate);
+  return output::ResultJson(o.estimate, output::ResultVerificationBlock(*o.verification));
+}
+
+std::vector<std::string> StatusReasons(const FitOutcome& o, bool verification_sets_status) {
+  std::vector<std::string> reasons;
+  for (const auto& [what, sentence] : o.undetermined) reasons.push_back(sentence);
+  if (o.verification && verification_sets_status)
+    for (const verify::MotorCheck& m : o.verification->motors)
+      for (const verify::LineCheck& c : m.lines)
+        if (c.decision.verdict != verify::Verdict::kPass)
+          reasons.push_back("datasheet line " + c.key + ": " + std::string(verify::VerdictName(c.decision.verdict)));
+  return reasons;
+}
+
+int RunFit(const FitArguments& a, std::ostream& out) {
+  std::optional<verify::Datasheet> sheet;  // read first: a bad sheet stops before any fit
+  if (!a.datasheet_path.empty()) sheet = verify::LoadDatasheet(a.datasheet_path);
+  const std::string name = !a.json_path.empty() ? a.json_path : !a.session_path.empty() ? a.session_path : "this fit";
+  const FitOutcome outcome = FitOneMotor(a, sheet ? &*sheet : nullptr, name);
+  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, ResultText(outcome));
+  if (!a.quiet) {
+    out << output::ParameterTable(outcome.estimate);
+    if (outcome.verification) out << "\n" << output::VerificationText(*outcome.verification);
+  }
   // Why the exit status is 1, on stderr whether or not the table was printed.
-  for (const auto& [what, sentence] : undetermined) std::cerr << "coilspin: " << sentence << "\n";
-  return undetermined.empty() ? kSuccess : kUndetermined;
+  const std::vector<std::string> reasons = StatusReasons(outcome, a.verification_sets_status);
+  for (const std::string& reason : reasons) std::cerr << "coilspin: " << reason << "\n";
+  return reasons.empty() ? kSuccess : kUndetermined;
+}
+
+int RunFitCommand(FitArguments a, std::ostream& out) {
+  if (!a.out_dir.empty()) return RunBatchFit(a, out);
+  if (a.session_paths.size() > 1)
+    throw InputError(InputErrorKind::kBadOption, "", 0, 0,
+                     "several session files are a lot of motors: add --out-dir DIR for one result file each");
+  if (!a.session_paths.empty()) a.session_path = a.session_paths.front();
+  return RunFit(a, out);
 }
 
 }  // namespace coilspin::cli

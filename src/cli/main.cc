@@ -11,6 +11,7 @@
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
 #include "src/cli/tune_command.h"
+#include "src/cli/verify_command.h"
 #include "src/ingest/input_error.h"
 
 int main(int argc, char** argv) {
@@ -25,7 +26,8 @@ int main(int argc, char** argv) {
   cli::DeclareFitOptions(fit_command, &fit);
 
   cli::FitArguments demo;
-  CLI::App* demo_command = app.add_subcommand("demo", "Fit the bundled demo motor and print its parameter table");
+  CLI::App* demo_command = app.add_subcommand(
+      "demo", "Fit the bundled demo motor, print its parameter table and verify it against the demo datasheet");
   demo_command->add_option("--json", demo.json_path, "Also write the result file here");
 
   cli::SimulateArguments simulate;
@@ -42,6 +44,11 @@ int main(int argc, char** argv) {
       app.add_subcommand("export", "Write a fitted motor for other tools: SPICE, state-space, C++ header, CSV");
   cli::DeclareExportOptions(export_command, &export_arguments);
 
+  cli::VerifyArguments verify;
+  CLI::App* verify_command = app.add_subcommand(
+      "verify", "Verify result files (one motor or a lot) against a supplier's datasheet, line by line");
+  cli::DeclareVerifyOptions(verify_command, &verify);
+
   cli::TuneArguments tune;
   CLI::App* tune_command =
       app.add_subcommand("tune", "PI gains of a drive's current and speed loops for a fitted motor");
@@ -54,12 +61,15 @@ int main(int argc, char** argv) {
     return code == 0 ? cli::kSuccess : cli::kBadInput;
   }
   try {
-    if (*fit_command) return cli::RunFit(fit, std::cout);
+    if (*fit_command) return cli::RunFitCommand(fit, std::cout);
     if (*demo_command) {
       demo.session_path = cli::DemoSessionPath();
+      demo.datasheet_path = cli::DemoDatasheetPath();
+      demo.verification_sets_status = false;  // the demo's sheet fails a line on purpose
       std::cerr << "coilspin demo: fitting " << demo.session_path << "\n";
       return cli::RunFit(demo, std::cout);
     }
+    if (*verify_command) return cli::RunVerify(verify, std::cout, std::cerr);
     if (*simulate_command) return cli::RunSimulate(simulate);
     if (*consistency_command) return cli::RunConsistency(consistency, std::cout);
     if (*export_command) return cli::RunExport(export_arguments, std::cout, std::cerr);

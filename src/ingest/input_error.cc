@@ -6,7 +6,7 @@
 namespace coilspin {
 namespace {
 
-constexpr std::array<std::pair<InputErrorKind, std::string_view>, 18> kKindNames = {{
+constexpr std::array<std::pair<InputErrorKind, std::string_view>, 19> kKindNames = {{
     {InputErrorKind::kCannotOpen, "cannot-open"},
     {InputErrorKind::kEmptyFile, "empty-file"},
     {InputErrorKind::kBinaryFile, "binary-file"},
@@ -25,6 +25,7 @@ constexpr std::array<std::pair<InputErrorKind, std::string_view>, 18> kKindNames
     {InputErrorKind::kBadSession, "bad-session"},
     {InputErrorKind::kDuplicateColumn, "duplicate-column"},
     {InputErrorKind::kBadResultFile, "bad-result-file"},
+    {InputErrorKind::kBadDatasheet, "bad-datasheet"},
 }};
 
 // "file:line:column: message"; the line is left out when 0, the column when it

@@ -29,6 +29,7 @@ enum class InputErrorKind {
   kBadSession,
   kDuplicateColumn,  // two header cells name the same quantity
   kBadResultFile,    // a result file that is not JSON, not a coilspin result, or lacks a key
+  kBadDatasheet,     // a datasheet file (TOML) that names an unknown key, a wrong unit, no nominal, ...
 };
 
 std::string_view InputErrorKindName(InputErrorKind kind);

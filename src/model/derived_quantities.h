@@ -2,7 +2,7 @@
 // Quantities that follow from the fitted parameters at a stated terminal
 // voltage V (docs/methods.md §6). Each is a formula of named parameters; its
 // uncertainty follows from the parameter covariance by the delta method
-// (fitters/joint/derived.h).
+// (src/result/derived_intervals.h).
 //
 // Steady state, shaft torque on the torque–speed line (friction included when known):
 //   τ(ω) = Kt·(V − Vb − Ke·ω)/R − B·ω − Tc

@@ -71,9 +71,7 @@ Json SettingJson(const std::string& text) {
   return text;
 }
 
-}  // namespace
-
-std::string ResultJson(const MotorEstimate& e) {
+std::string Document(const MotorEstimate& e, const Json* verification) {
   Json j;
   j["format"] = kResultFormat;
   if (!e.motor_label.empty()) j["motor"] = {{"label", e.motor_label}};
@@ -123,10 +121,17 @@ std::string ResultJson(const MotorEstimate& e) {
     solver.push_back({{"converged", s.converged}, {"termination", s.termination}, {"iterations", s.iterations},
                       {"initial_cost", s.initial_cost}, {"final_cost", s.final_cost}});
   j["solver"] = solver;
+  if (verification) j["verification"] = *verification;
   Json settings = Json::object();
   for (const auto& [key, value] : e.settings) settings[key] = SettingJson(value);
   j["settings"] = settings;
   return j.dump(2) + "\n";
 }
+
+}  // namespace
+
+std::string ResultJson(const MotorEstimate& e) { return Document(e, nullptr); }
+
+std::string ResultJson(const MotorEstimate& e, const Json& verification) { return Document(e, &verification); }
 
 }  // namespace coilspin::output

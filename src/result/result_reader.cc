@@ -344,6 +344,7 @@ ResultFile ParseResult(const std::string& text, const std::string& file) {
   if (auto settings = root.Find("settings"))
     for (const auto& [key, value] : settings->Members())
       e.settings.push_back({key, value.json().is_number() ? value.json().dump() : value.Text()});
+  if (auto verification = root.Find("verification")) result.verification = verification->Object().json();
   return result;
 }
 

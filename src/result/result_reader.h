@@ -14,6 +14,8 @@
 // Keys the reader does not know are ignored, so later formats that only add
 // keys read as well.
 
+#include <nlohmann/json.hpp>
+#include <optional>
 #include <string>
 
 #include "fitters/core/motor_estimate.h"
@@ -27,6 +29,10 @@ inline constexpr const char* kResultFormat2 = "coilspin.result/2";
 struct ResultFile {
   int format_version = 0;  // 1 or 2
   MotorEstimate estimate;
+  // The "verification" block of a fit with --datasheet, kept as written
+  // (src/verify recomputes a verification from the estimate; writing this back
+  // with output::ResultJson(estimate, block) gives the same bytes).
+  std::optional<nlohmann::ordered_json> verification;
 };
 
 // `file` names the text in errors. Throws ResultFileError.

@@ -35,6 +35,9 @@ mkdir "$work/elsewhere"
 check "installed demo fits the installed session" \
   grep -qF "coilspin demo: fitting $prefix/share/coilspin/demo/session.toml" "$work/elsewhere/err.txt"
 check "installed demo prints the table" grep -qE 'resistance +R +1\.37[0-9]+ +ohm' "$work/elsewhere/out.txt"
+check "installed demo verifies its installed datasheet" \
+  grep -qF "($prefix/share/coilspin/demo/datasheet.toml)" "$work/elsewhere/out.txt"
+check "installed demo lot is installed" test -f "$prefix/share/coilspin/demo/lot/motor-0104.toml"
 check "installed demo's result conforms to the format-2 schema" \
   "$python" "$source/tests/tools/validate_result.py" "$source/docs/result-format-2.schema.json" "$work/elsewhere/demo.json"
 

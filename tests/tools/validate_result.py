@@ -1,15 +1,20 @@
 #!/usr/bin/env python3
-"""Checks coilspin result files against docs/result-format-2.schema.json.
+"""Checks coilspin result files against docs/result-format-2.schema.json, and
+verification files against docs/verification-format-1.schema.json.
 
-Usage: validate_result.py SCHEMA RESULT.json [RESULT.json ...]
+Usage: validate_result.py SCHEMA FILE.json [FILE.json ...]
 
-Besides the schema (python3-jsonschema, Debian), checks what JSON Schema cannot
-say: the covariance and correlation are square, one row per name, symmetric
-exactly; their names are parameters; a torque constant taken equal to Ke has
-Ke's row; the correlation has 1 on its diagonal. Prints one line per problem
-and exits 1 when there is any.
+The other *.schema.json files beside SCHEMA are known by their $id, so that
+one schema may refer to another (a result's "verification" block is the
+verification schema's). Besides the schema (python3-jsonschema, Debian), checks
+what JSON Schema cannot say of a result file: the covariance and correlation
+are square, one row per name, symmetric exactly; their names are parameters; a
+torque constant taken equal to Ke has Ke's row; the correlation has 1 on its
+diagonal. Prints one line per problem and exits 1 when there is any.
 """
+import glob
 import json
+import os
 import sys
 
 import jsonschema
@@ -39,17 +44,27 @@ def matrix_problems(result, key):
     return problems
 
 
-def main():
-    with open(sys.argv[1]) as f:
+def validator_for(schema_path):
+    with open(schema_path) as f:
         schema = json.load(f)
-    validator = jsonschema.Draft202012Validator(schema)
+    store = {}
+    for path in glob.glob(os.path.join(os.path.dirname(os.path.abspath(schema_path)), "*.schema.json")):
+        with open(path) as f:
+            other = json.load(f)
+        store[other["$id"]] = other
+    resolver = jsonschema.RefResolver.from_schema(schema, store=store)
+    return jsonschema.Draft202012Validator(schema, resolver=resolver)
+
+
+def main():
+    validator = validator_for(sys.argv[1])
     failed = False
     for path in sys.argv[2:]:
         with open(path) as f:
             result = json.load(f)
         problems = [f"{'/'.join(map(str, e.absolute_path)) or '(top)'}: {e.message}"
                     for e in validator.iter_errors(result)]
-        if not problems:
+        if not problems and "covariance" in result:
             problems = matrix_problems(result, "covariance") + matrix_problems(result, "correlation")
         for p in problems:
             print(f"{path}: {p}")
