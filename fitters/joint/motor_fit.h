@@ -58,6 +58,9 @@ struct MotorFitOptions {
   IntervalOptions intervals;                                       // wald | profile | bootstrap
   core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
   std::vector<NoiseOverride> noise;                                // --noise channel=sigma
+  // Every log's current comes through one sensor (sensor_offsets.h): its zero reading,
+  // seen in one log, corrects all. False: the sensors differ and no log corrects another.
+  bool one_current_sensor = true;
 
   bool IsValid(std::string* error) const;
 };
