@@ -8,6 +8,8 @@
 #include "fitters/no_load/no_load_residual.h"
 #include "src/model/sensor_offsets.h"
 #include "src/model/copper_resistance.h"
+#include "src/ingest/noise_level.h"
+#include "src/ingest/small_text_and_statistics.h"
 
 namespace coilspin::no_load {
 namespace {
@@ -45,11 +47,33 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
       nl.temperature_factor = model::CopperResistanceAt(1.0, *temperatures.reference_degC, *theta_degC);
     const std::vector<double>& speed = *speeds[k].speed_rad_s;
     const double speed_noise = NoiseFromDifferences(speed);
-    for (const auto& p : FindPlateaus(logs[k]->voltage_V, {&logs[k]->voltage_V, &logs[k]->current_A, &speed}, options)) {
+    // The current and speed settle with the mechanical time constant (segmentation.h).
+    const std::vector<const std::vector<double>*> channels = {&logs[k]->voltage_V, &logs[k]->current_A, &speed};
+    const ChannelNoise current_noise = EstimateChannelNoise(logs[k]->current_A);
+    const ChannelNoise speed_level_noise = EstimateChannelNoise(speed);
+    const std::vector<SettlingChannel> settling = {{1, current_noise.sigma, current_noise.lag1},
+                                                   {2, speed_level_noise.sigma, speed_level_noise.lag1}};
+    std::size_t unsettled = 0;
+    double worst_trend = 0.0;
+    std::string settling_warning;
+    for (const auto& found : FindPlateaus(logs[k]->voltage_V, channels, options)) {
+      const SettledPlateau s = SettlePlateau(found, channels, settling, options.min_samples);
+      const Plateau& p = s.plateau;
       NoLoadPlateau q{p.channels[0].mean,    p.channels[1].mean,    p.channels[2].mean,
                       p.channels[0].std_dev, p.channels[1].std_dev, p.channels[2].std_dev, p.size()};
-      if (std::fabs(q.mean_speed_rad_s) > kTurningSpeedSigmas * std::max(speed_noise, q.speed_std_rad_s))
+      if (std::fabs(q.mean_speed_rad_s) > kTurningSpeedSigmas * std::max(speed_noise, q.speed_std_rad_s)) {
         nl.plateaus.push_back(q);
+        if (!s.settled) {
+          ++unsettled;
+          worst_trend = std::max(worst_trend, s.trend_standard_errors);
+        }
+      }
+    }
+    if (unsettled > 0) {
+      settling_warning = logs[k]->path + ": " + std::to_string(unsettled) +
+                               " no-load level(s) still settling at their end (the halves of the settled part differ "
+                               "by up to " + Format("%.1f", worst_trend) +
+                               " standard errors): hold each level for at least 20 mechanical time constants";
     }
     plan.plateau_count += nl.plateaus.size();
     plan.summary_index.push_back(estimate->tests.size());
@@ -57,6 +81,10 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
                                "plateaus: " + std::to_string(nl.plateaus.size()) + " settled levels turning; speed: " +
                                    speeds[k].method,
                                {}, {}, {}, {}});
+    if (!settling_warning.empty()) {
+      estimate->tests.back().warnings.push_back(settling_warning);
+      estimate->warnings.push_back(settling_warning);
+    }
     plan.logs.push_back(nl);
   }
   // Friction start: Kt·ī = B·ω̄ + Tc·sgn(ω̄) by least squares, with Kt = Ke at its start.

@@ -33,6 +33,10 @@ constexpr double kLevelEdgeSigmas = 4.0;
 // noise toggling a reading between two neighbouring steps is not a change of level.
 constexpr double kLevelChangeSteps = 2.0;
 
+// φ is capped here when the AR(1) inflation (1 + φ)/(1 − φ) is formed (200 at most):
+// a channel that looks almost a random walk is not made untestable (common practice).
+constexpr double kMaxLag1 = 0.99;
+
 // Step onset: the initial level is the median of the first 1/20 of the record,
 // but of no more than its first 8 samples, so that a short pre-trigger part
 // (common practice: oscilloscopes keep a few percent) still sets it; a step
@@ -153,6 +157,41 @@ std::vector<Plateau> FindPlateaus(const std::vector<double>& level,
     plateaus.push_back(std::move(plateau));
   }
   return plateaus;
+}
+
+SettledPlateau SettlePlateau(const Plateau& plateau, const std::vector<const std::vector<double>*>& channels,
+                             const std::vector<SettlingChannel>& settling, std::size_t min_samples) {
+  std::vector<double> inflation;
+  for (const SettlingChannel& c : settling) {
+    const double phi = std::clamp(c.lag1, 0.0, kMaxLag1);
+    inflation.push_back((1.0 + phi) / (1.0 - phi));
+  }
+  SettledPlateau out;
+  std::size_t begin = plateau.begin;
+  const std::size_t end = plateau.end;
+  const std::size_t shortest = 2 * std::max<std::size_t>(min_samples, 1);
+  for (;;) {
+    const std::size_t n = end - begin;
+    const std::size_t middle = begin + n / 2;
+    double worst = 0.0;
+    for (std::size_t i = 0; i < settling.size(); ++i) {
+      const std::vector<double>& x = *channels.at(settling[i].index);
+      const double first = Summarise(x, begin, middle).mean;
+      const double second = Summarise(x, middle, end).mean;
+      const double standard_error =
+          2.0 * settling[i].sigma * std::sqrt(inflation[i] / static_cast<double>(n));
+      const double ratio = standard_error > 0.0 ? std::abs(first - second) / standard_error : 0.0;
+      worst = std::max(worst, ratio);
+    }
+    out.trend_standard_errors = worst;
+    out.settled = worst <= kSettledHalvesStandardErrors;
+    if (out.settled || n - n / 4 < shortest) break;
+    begin += n / 4;
+  }
+  out.plateau.begin = begin;
+  out.plateau.end = end;
+  for (const std::vector<double>* channel : channels) out.plateau.channels.push_back(Summarise(*channel, begin, end));
+  return out;
 }
 
 std::optional<std::size_t> FindStepOnset(const std::vector<double>& signal) {

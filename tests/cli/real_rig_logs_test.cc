@@ -151,9 +151,7 @@ TEST_F(RealRigLogs, OneCurrentSensorsZeroSeenInTheCoastCorrectsEveryLog) {
   const std::string sensor = " --current-noise 0.003 --current-offset 0.03";
   Simulate("spin-down --out sd.csv" + kBare + " --supply 6 --run 0.5 --speed-noise 0.2 --voltage-noise 0.005" +
            sensor + " --seed 11");
-  // Each level held 1 s, some 20 mechanical time constants (a level held only the
-  // simulator's default of 10 leaves about 1 % of its step in the settled mean, since
-  // only the first quarter is dropped: a hold rule for the user, docs/methods.md).
+  // Each level held 1 s, some 20 mechanical time constants (the hold README asks for).
   Simulate("no-load --out nl.csv" + kBare + " --levels 2,4,6,8,10 --hold 1 --speed-noise 0.2 --voltage-noise 0.005" +
            sensor + " --seed 12");
   Simulate("locked-rotor --out lr.csv" + kBare + " --levels 1,2,3,4 --hold 0.3 --voltage-noise 0.002" + sensor +

@@ -164,6 +164,57 @@ TEST(FindPlateaus, CoarseAdcWithNoiseUnderAStepKeepsEveryLevel) {
   }
 }
 
+// A free shaft's current after a level change: I + A·e^(−k/τ) plus white noise σ
+// (physics: first-order settling with the mechanical time constant), samples [0, n).
+std::vector<double> Settling(double level, double amplitude, double tau_samples, double sigma, std::size_t n,
+                             unsigned seed) {
+  std::mt19937_64 random(seed);
+  std::normal_distribution<double> noise(0.0, sigma);
+  std::vector<double> x(n);
+  for (std::size_t k = 0; k < n; ++k)
+    x[k] = level + amplitude * std::exp(-static_cast<double>(k) / tau_samples) + noise(random);
+  return x;
+}
+
+double Mean(const std::vector<double>& x, std::size_t begin, std::size_t end) {
+  double sum = 0.0;
+  for (std::size_t k = begin; k < end; ++k) sum += x[k];
+  return sum / static_cast<double>(end - begin);
+}
+
+TEST(SettlePlateau, DropsWhatIsStillDecayingAndNamesALevelThatNeverSettles) {
+  // A level of 1000 samples, τ = 100: the second half starts at e^(−5)·A, which biases
+  // its mean by ≈ A·e^(−5)·τ/500 = 3 standard errors of the mean (σ/√500), and the
+  // plain mean misses the level by more than 2 of them in most seeds. After the test the
+  // decay left biases the mean by about one standard error (segmentation.h), so with
+  // the noise's own it is within 3 (normal tail: 3 SE holds 99.7 %).
+  constexpr double kLevel = 0.17, kAmplitude = 1.0, kSigma = 0.01;
+  int settled = 0, plain_misses = 0;
+  for (unsigned seed = 1; seed <= 20; ++seed) {
+    const std::vector<double> current = Settling(kLevel, kAmplitude, 100.0, kSigma, 1000, seed);
+    Plateau half;
+    half.begin = 500;
+    half.end = 1000;
+    const SettledPlateau s = SettlePlateau(half, {&current}, {{0, kSigma, 0.0}}, 8);
+    const double standard_error = kSigma / std::sqrt(static_cast<double>(s.plateau.size()));
+    EXPECT_NEAR(s.plateau.channels[0].mean, kLevel, 3.0 * standard_error) << "seed " << seed << " begin " << s.plateau.begin << " trend " << s.trend_standard_errors;
+    settled += s.settled ? 1 : 0;
+    // Without the test: the half-dropped mean.
+    plain_misses += std::abs(Mean(current, 500, 1000) - kLevel) > 2.0 * kSigma / std::sqrt(500.0) ? 1 : 0;
+  }
+  EXPECT_EQ(settled, 20);
+  EXPECT_GE(plain_misses, 15);
+  // Held one time constant only: still trending at the shortest part, and said so.
+  const std::vector<double> short_hold = Settling(kLevel, kAmplitude, 100.0, kSigma, 100, 1);
+  Plateau whole;
+  whole.begin = 0;
+  whole.end = 100;
+  const SettledPlateau s = SettlePlateau(whole, {&short_hold}, {{0, kSigma, 0.0}}, 8);
+  EXPECT_FALSE(s.settled);
+  EXPECT_GT(s.trend_standard_errors, kSettledHalvesStandardErrors);
+  EXPECT_GE(s.plateau.size(), 16u);
+}
+
 TEST(FindPlateaus, ChecksItsArguments) {
   const std::vector<double> level(20, 1.0);
   const std::vector<double> shorter(19, 1.0);
