@@ -58,6 +58,7 @@ struct MotorFitOptions {
   IntervalOptions intervals;                                       // wald | profile | bootstrap
   core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
   std::vector<NoiseOverride> noise;                                // --noise channel=sigma
+  bool keep_model_traces = false;  // fill MotorEstimate::model_traces (the fitted model over each log)
 
   bool IsValid(std::string* error) const;
 };
