@@ -8,6 +8,8 @@
 #include <utility>
 #include <vector>
 
+#include "fitters/core/model_trace.h"
+
 namespace coilspin {
 
 // One estimated quantity, SI, with a two-sided interval at the fit's confidence.
@@ -118,6 +120,9 @@ struct MotorEstimate {
   std::vector<SolverSummary> solver;
   std::vector<std::string> warnings;
   std::vector<std::pair<std::string, std::string>> settings;  // effective options, as text
+  // The fitted model over each test's logged channels, for the report; empty unless
+  // asked for (joint::MotorFitOptions::keep_model_traces). Never written to the result file.
+  std::vector<ModelTrace> model_traces;
 
   const QuantityEstimate* Find(const std::string& key) const {
     for (const auto& q : parameters)

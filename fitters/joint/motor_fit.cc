@@ -10,6 +10,7 @@
 #include "fitters/joint/consistency.h"
 #include "fitters/joint/assumptions.h"
 #include "fitters/joint/derived.h"
+#include "fitters/joint/residual_groups.h"
 #include "fitters/joint/sensor_offsets.h"
 #include "fitters/locked_rotor/input_noise.h"
 #include "fitters/no_load/no_load_fit.h"
@@ -91,43 +92,6 @@ PlateauOptions NoLoadPlateauOptions(PlateauOptions options) {
 
 // Above this |ρ| two parameters are nearly one direction for the data.
 constexpr double kStrongCorrelation = 0.99;
-
-// Every residual group of the joint problem: the test it belongs to, its
-// channel, and whether it holds samples (a step or coast) or plateau means.
-struct ResidualGroup {
-  std::size_t summary;  // index into MotorEstimate::tests
-  int group;            // -1 when the test did not add it
-  const char* channel;
-  const char* unit;  // of the channel's residuals
-  bool sample_by_sample;
-};
-
-std::vector<ResidualGroup> ResidualGroups(const locked_rotor::LockedRotorPlan& lr, const no_load::NoLoadPlan& nl,
-                                          const spin_down::SpinDownPlan& sd, const step::StepTestPlan& st) {
-  std::vector<ResidualGroup> groups;
-  for (std::size_t k = 0; k < lr.plateau_logs.size(); ++k) {
-    groups.push_back({lr.summary_index[k], lr.plateau_logs[k].voltage_group, "voltage", "V", false});
-    groups.push_back({lr.summary_index[k], lr.plateau_logs[k].torque_group, "torque", "N*m", false});
-  }
-  for (std::size_t s = 0; s < lr.step_logs.size(); ++s)
-    groups.push_back({lr.summary_index[lr.plateau_logs.size() + s], lr.step_logs[s].group, "current", "A", true});
-  for (std::size_t k = 0; k < nl.logs.size(); ++k) {
-    groups.push_back({nl.summary_index[k], nl.logs[k].voltage_group, "voltage", "V", false});
-    groups.push_back({nl.summary_index[k], nl.logs[k].current_group, "current", "A", false});
-  }
-  for (const auto& c : sd.logs) {
-    const bool speed = c.position_rad.empty();
-    groups.push_back({c.summary, c.motion_group, speed ? "speed" : "position", speed ? "rad/s" : "rad", true});
-    groups.push_back({c.summary, c.voltage_group, "voltage", "V", true});
-    groups.push_back({c.summary, c.zero_current_group, "current", "A", true});
-  }
-  for (const auto& s : st.logs) {
-    groups.push_back({s.summary, s.current_group, "current", "A", true});
-    groups.push_back({s.summary, s.motion_group, s.fit_position ? "position" : "speed", s.fit_position ? "rad" : "rad/s",
-                      true});
-  }
-  return groups;
-}
 
 // Each test's share of each estimated parameter's information.
 void AddInformationShares(const std::vector<ResidualGroup>& groups, const core::SharedParameters& parameters,
@@ -318,6 +282,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   solve.group_sigma_rounds = kGroupSigmaRounds;
   solve.loss = options.loss;
   core::FitResult fit = problem.Solve(solve);
+  if (options.keep_model_traces)  // at the solution, before any interval method moves the problem
+    if (const auto residuals = problem.Residuals()) e.model_traces = ModelTraces(residual_groups, *residuals);
   const Eigen::MatrixXd output_covariance = fit.covariance;
   locked_rotor::AddVoltageNoiseCovariance(lr, parameters, &fit);
   step::AddStepVoltageNoiseCovariance(st, &fit);

@@ -61,6 +61,7 @@ struct MotorFitOptions {
   // Every log's current comes through one sensor (sensor_offsets.h): its zero reading,
   // seen in one log, corrects all. False: the sensors differ and no log corrects another.
   bool one_current_sensor = true;
+  bool keep_model_traces = false;  // fill MotorEstimate::model_traces (the fitted model over each log)
 
   bool IsValid(std::string* error) const;
 };

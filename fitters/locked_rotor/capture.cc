@@ -105,6 +105,8 @@ std::vector<LockedPlateau> FindLockedPlateaus(const BenchLog& log, const Plateau
       p.torque_std_N_m = plateau.channels[torque_channel].std_dev;
     }
     p.samples = plateau.size();
+    p.begin = plateau.begin;
+    p.end = plateau.end;
     const double noise_A = std::max(current_noise_A, p.current_std_A);
     if (std::fabs(p.mean_current_A) > kNonZeroCurrentSigmas * noise_A) result.push_back(p);
   }

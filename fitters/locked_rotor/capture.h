@@ -58,6 +58,8 @@ struct LockedPlateau {
   double torque_std_N_m = 0.0;
   bool has_torque = false;
   std::size_t samples = 0;
+  std::size_t begin = 0;            // settled samples [begin, end) of the log
+  std::size_t end = 0;
 };
 
 // Settled plateaus whose current is distinguishable from zero.

@@ -60,7 +60,8 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
       const SettledPlateau s = SettlePlateau(found, channels, settling, options.min_samples);
       const Plateau& p = s.plateau;
       NoLoadPlateau q{p.channels[0].mean,    p.channels[1].mean,    p.channels[2].mean,
-                      p.channels[0].std_dev, p.channels[1].std_dev, p.channels[2].std_dev, p.size()};
+                      p.channels[0].std_dev, p.channels[1].std_dev, p.channels[2].std_dev, p.size(),
+                      p.begin,               p.end};
       if (std::fabs(q.mean_speed_rad_s) > kTurningSpeedSigmas * std::max(speed_noise, q.speed_std_rad_s)) {
         nl.plateaus.push_back(q);
         if (!s.settled) {

@@ -37,6 +37,8 @@ struct NoLoadPlateau {
   double current_std_A = 0.0;
   double speed_std_rad_s = 0.0;
   std::size_t samples = 0;
+  std::size_t begin = 0;  // settled samples [begin, end) of the log
+  std::size_t end = 0;
 };
 
 struct NoLoadLog {

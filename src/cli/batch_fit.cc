@@ -38,6 +38,7 @@ struct Motor {
 std::vector<Motor> Plan(const FitArguments& a) {
   if (a.session_paths.empty()) Usage("--out-dir needs session files, one per motor");
   if (!a.json_path.empty()) Usage("--json names one result file; with --out-dir each session's goes into the folder");
+  if (!a.report_path.empty()) Usage("--report draws one motor's fit; it does not go with --out-dir");
   std::map<std::string, std::string> by_stem;
   std::vector<Motor> motors;
   for (const std::string& session : a.session_paths) {

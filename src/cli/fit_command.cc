@@ -11,11 +11,13 @@
 #include "src/cli/batch_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/report_file.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
 #include "src/ingest/outliers.h"
 #include "src/ingest/read_bench_log.h"
 #include "src/output/atomic_file.h"
+#include "src/output/html_report.h"
 #include "src/output/parameter_table.h"
 #include "src/output/result_json.h"
 #include "src/output/verification_json.h"
@@ -93,6 +95,9 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--require", a->required,
                 "Parameter that must be determined (else exit status 1), e.g. --require inductance");
   c->add_option("--json", a->json_path, "Write the result file (coilspin.result/2) here, atomically");
+  c->add_option("--report", a->report_path,
+                "Write the fit as one self-contained HTML page here (parameters, charts of every log with the "
+                "fitted model and residuals, torque-speed line, correlations, warnings); it opens offline");
   c->add_option("--datasheet", a->datasheet_path,
                 "Verify the fitted motor against this datasheet (TOML): the table gains a verification section, "
                 "the result file a \"verification\" block; exit status 1 when a line does not pass");
@@ -153,6 +158,7 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
   const std::string current_sensors =
       !a.current_sensors.empty() ? a.current_sensors : session && session->current_sensors ? *session->current_sensors : "one";
   options.one_current_sensor = current_sensors == "one";
+  options.keep_model_traces = !a.report_path.empty();
   std::vector<std::pair<std::string, std::string>> estimate_settings_noise;
   for (const auto& [quantity, text] : ParseQuantityMap(a.noise_specs, "--noise")) {
     char* end = nullptr;
@@ -231,6 +237,8 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
           {t.file, t.file + ": the " + t.kind + " log contributed nothing to the fit (" + t.method + ")"});
   if (sheet) outcome.verification = verify::Verify(*sheet, {{result_name, estimate}});
   outcome.estimate = std::move(estimate);
+  if (!a.report_path.empty())
+    for (auto& t : logs) outcome.logs.push_back(std::move(t.log));
   return outcome;
 }
 
@@ -250,12 +258,29 @@ std::vector<std::string> StatusReasons(const FitOutcome& o, bool verification_se
   return reasons;
 }
 
+std::string ReportText(const FitOutcome& o) {
+  std::vector<const BenchLog*> logs;  // the log of each test, by the path the test names
+  std::vector<bool> taken(o.logs.size(), false);
+  for (const TestSummary& t : o.estimate.tests) {
+    const BenchLog* found = nullptr;
+    for (std::size_t k = 0; k < o.logs.size() && !found; ++k)
+      if (!taken[k] && o.logs[k].path == t.file) {
+        taken[k] = true;
+        found = &o.logs[k];
+      }
+    logs.push_back(found);
+  }
+  return output::HtmlReport(o.estimate, logs, o.verification ? &*o.verification : nullptr);
+}
+
 int RunFit(const FitArguments& a, std::ostream& out) {
   std::optional<verify::Datasheet> sheet;  // read first: a bad sheet stops before any fit
   if (!a.datasheet_path.empty()) sheet = verify::LoadDatasheet(a.datasheet_path);
+  if (!a.report_path.empty()) CheckReportTarget(a.report_path);  // before the fit, too
   const std::string name = !a.json_path.empty() ? a.json_path : !a.session_path.empty() ? a.session_path : "this fit";
   const FitOutcome outcome = FitOneMotor(a, sheet ? &*sheet : nullptr, name);
   if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, ResultText(outcome));
+  if (!a.report_path.empty()) WriteReport(a.report_path, ReportText(outcome));
   if (!a.quiet) {
     out << output::ParameterTable(outcome.estimate);
     if (outcome.verification) out << "\n" << output::VerificationText(*outcome.verification);

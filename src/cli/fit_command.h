@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "fitters/core/motor_estimate.h"
+#include "src/ingest/bench_log.h"
 #include "src/verify/verification.h"
 
 namespace coilspin::cli {
@@ -38,6 +39,7 @@ struct FitArguments {
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined
   std::string json_path;
+  std::string report_path;     // --report: the fit as a self-contained HTML page (src/output/html_report.h)
   std::string datasheet_path;  // --datasheet: verify the fitted motor against it
   std::string out_dir;         // --out-dir: a lot, one result file per session (batch_fit.h)
   bool quiet = false;
@@ -62,11 +64,17 @@ struct FitOutcome {
   // A --require key or log, and the sentence that says why the exit status is 1.
   std::vector<std::pair<std::string, std::string>> undetermined;
   std::optional<verify::Verification> verification;
+  // With --report: the logs as fitted (estimate.tests name them by path), and the
+  // estimate holds its model traces.
+  std::vector<BenchLog> logs;
 };
 FitOutcome FitOneMotor(const FitArguments& arguments, const verify::Datasheet* sheet, const std::string& result_name);
 
 // The result file's text (with the verification block when there is one).
 std::string ResultText(const FitOutcome& outcome);
+
+// The report page (--report) of a fit made with report_path set.
+std::string ReportText(const FitOutcome& outcome);
 
 // Why the exit status is 1, one line each ("inductance not determined: ...",
 // "datasheet line no_load_speed: fail"); empty when it is 0.

@@ -29,6 +29,8 @@ int main(int argc, char** argv) {
   CLI::App* demo_command = app.add_subcommand(
       "demo", "Fit the bundled demo motor, print its parameter table and verify it against the demo datasheet");
   demo_command->add_option("--json", demo.json_path, "Also write the result file here");
+  demo_command->add_option("--report", demo.report_path,
+                           "Also write the fit as one self-contained HTML page here (opens offline)");
 
   cli::SimulateArguments simulate;
   CLI::App* simulate_command = app.add_subcommand("simulate", "Write a synthetic bench log from a parameter set");

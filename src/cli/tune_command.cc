@@ -20,6 +20,10 @@ void DeclareTuneOptions(CLI::App* c, TuneArguments* a) {
       ->check(CLI::PositiveNumber);
   c->add_option("--speed-bandwidth", a->speed_bandwidth_hz, "Speed-loop bandwidth [Hz] (default: current-loop / 10)")
       ->check(CLI::PositiveNumber);
+  c->add_option("--loop-delay", a->loop_delay_s,
+                "Delay [s] from measuring to the applied voltage in the drive (sampling, computation, PWM), "
+                "e.g. 75e-6; it enters both phase margins as e^(-s*T) (default 0)")
+      ->check(CLI::NonNegativeNumber);
   c->add_option("--json", a->json_path, "Write the tuning (coilspin.tuning/1) here, atomically");
   c->add_flag("--quiet", a->quiet, "Print nothing on success");
 }
@@ -36,6 +40,7 @@ int RunTune(const TuneArguments& a, std::ostream& out, std::ostream& err) {
   tune::TuningRequest request;
   if (a.current_bandwidth_hz) request.current_bandwidth_rad_s = *a.current_bandwidth_hz * units::kRadiansPerRevolution;
   if (a.speed_bandwidth_hz) request.speed_bandwidth_rad_s = *a.speed_bandwidth_hz * units::kRadiansPerRevolution;
+  request.loop_delay_s = a.loop_delay_s;
   const tune::Tuning t = tune::TuneCascade(e, p, request);
   if (t.speed.bandwidth_rad_s >= t.current.bandwidth_rad_s)
     throw InputError(InputErrorKind::kBadOption, "", 0, 0,

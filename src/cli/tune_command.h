@@ -1,5 +1,5 @@
 #pragma once
-// `coilspin tune RESULT.json [--current-bandwidth HZ] [--speed-bandwidth HZ] [--json OUT.json]`:
+// `coilspin tune RESULT.json [--current-bandwidth HZ] [--speed-bandwidth HZ] [--loop-delay S] [--json OUT.json]`:
 // PI gains of a drive's current and speed loops for the fitted motor, with
 // their intervals and phase margins (src/tune, docs/exports.md).
 //
@@ -17,6 +17,7 @@ struct TuneArguments {
   std::string result_path;
   std::optional<double> current_bandwidth_hz;
   std::optional<double> speed_bandwidth_hz;
+  double loop_delay_s = 0.0;
   std::string json_path;
   bool quiet = false;
 };

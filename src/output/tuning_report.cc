@@ -44,10 +44,19 @@ Json LoopJson(const tune::LoopTuning& loop, const LoopWords& words) {
   return j;
 }
 
-std::vector<std::string> Assumptions(const std::vector<std::string>& taken_as_zero) {
+std::string DelayNote(double loop_delay_s) {
+  if (loop_delay_s > 0.0)
+    return "a loop delay of " + ShortNumber(loop_delay_s, 6) +
+           " s (sampling, computation, PWM) after each controller, e^(-s*T): it lowers both phase margins, the "
+           "gains follow their rules without it";
+  return "no sampling, computation or PWM delay is modelled (--loop-delay): each costs phase w*T_delay at the "
+         "crossover";
+}
+
+std::vector<std::string> Assumptions(const std::vector<std::string>& taken_as_zero, double loop_delay_s) {
   std::vector<std::string> notes = {
       "parallel form u = kp*e + ki*integral(e); the current loop commands voltage, the speed loop current",
-      "no sampling, computation or PWM delay is modelled: each costs phase w*T_delay at the crossover",
+      DelayNote(loop_delay_s),
       "Coulomb friction and brush drop are constant disturbances here; the integral terms remove them"};
   for (const auto& key : taken_as_zero) notes.push_back(key + " not determined by the fit: taken as 0");
   return notes;
@@ -80,9 +89,10 @@ std::string TuningJson(const tune::Tuning& t, const std::vector<std::string>& ta
   j["format"] = kTuningFormat;
   j["source"] = SourceJson(source);
   j["confidence"] = t.confidence;
+  j["loop_delay_s"] = t.loop_delay_s;
   j["current_loop"] = LoopJson(t.current, kCurrentWords);
   j["speed_loop"] = LoopJson(t.speed, kSpeedWords);
-  j["assumptions"] = Assumptions(taken_as_zero);
+  j["assumptions"] = Assumptions(taken_as_zero, t.loop_delay_s);
   return j.dump(2) + "\n";
 }
 
@@ -95,7 +105,7 @@ std::string TuningText(const tune::Tuning& t, const std::vector<std::string>& ta
   out << "\n";
   LoopText(out, "speed loop (current from speed error)", t.speed, kSpeedWords, t.confidence);
   out << "\nassumptions\n";
-  for (const auto& a : Assumptions(taken_as_zero)) out << "  " << a << "\n";
+  for (const auto& a : Assumptions(taken_as_zero, t.loop_delay_s)) out << "  " << a << "\n";
   return out.str();
 }
 

@@ -30,7 +30,7 @@
 //        few times the drop the current needs in the end);
 //   ωs = ωc/10 (common practice, from memory: the inner loop of a cascade
 //        5–10 times faster than the outer).
-// The drive's sample rate and PWM delay are not in the model; both cost phase
+// The drive's sample rate and PWM delay are not in these rules; both cost phase
 // (ω·T_delay at the crossover) and bound the bandwidths a drive can use.
 
 #include "src/model/motor_parameters.h"

@@ -51,7 +51,12 @@ double Total(const std::vector<Factor>& loop, const std::vector<double>& phases)
   return total;
 }
 
-std::optional<Margin> MarginOf(const std::vector<Factor>& loop, double design_rad_s) {
+// The phase of the whole loop at w: its factors' (followed from `phases`) and the delay's −ω·T.
+double LoopPhase(const std::vector<Factor>& loop, const std::vector<double>& phases, double w, double delay_s) {
+  return Total(loop, phases) - w * delay_s;
+}
+
+std::optional<Margin> MarginOf(const std::vector<Factor>& loop, double design_rad_s, double delay_s) {
   const int points = static_cast<int>(2.0 * kSweepDecades * kPointsPerDecade);
   const double low = design_rad_s * std::pow(10.0, -kSweepDecades);
   const double step = std::pow(10.0, 1.0 / kPointsPerDecade);
@@ -69,7 +74,7 @@ std::optional<Margin> MarginOf(const std::vector<Factor>& loop, double design_ra
         (Magnitude(loop, mid) >= 1.0 ? lo : hi) = mid;
       }
       const double crossover = std::sqrt(lo * hi);
-      const double phase = Total(loop, Phases(loop, crossover, phases));
+      const double phase = LoopPhase(loop, Phases(loop, crossover, phases), crossover, delay_s);
       return Margin{crossover, units::kDegreesPerRevolution / 2.0 + phase * units::kDegreesPerRevolution /
                                                                         units::kRadiansPerRevolution};
     }
@@ -82,28 +87,35 @@ std::optional<Margin> MarginOf(const std::vector<Factor>& loop, double design_ra
 
 }  // namespace
 
-std::optional<Margin> CurrentLoopMargin(const model::MotorParameters& p, const PiGains& current, double design) {
+std::optional<Margin> CurrentLoopMargin(const model::MotorParameters& p, const PiGains& current, double design,
+                                        double delay_s) {
   const double r = p.resistance_ohm, l = p.inductance_H, j = p.inertia_kg_m2, b = p.viscous_friction_N_m_s_per_rad;
   const double ktke = p.torque_constant_N_m_per_A * p.back_emf_constant_V_s_per_rad;
   const std::vector<Factor> loop = {
       {[=](Complex s) { return Pi(current, s); }, 1},
       {[=](Complex s) { return j * s + b; }, 1},                              // J·s + B
       {[=](Complex s) { return (l * s + r) * (j * s + b) + ktke; }, -1}};     // (L·s + R)(J·s + B) + Kt·Ke
-  return MarginOf(loop, design);
+  return MarginOf(loop, design, delay_s);  // times e^(−sT)
 }
 
 std::optional<Margin> SpeedLoopMargin(const model::MotorParameters& p, const PiGains& current, const PiGains& speed,
-                                      double design) {
+                                      double design, double delay_s) {
   const double r = p.resistance_ohm, l = p.inductance_H, j = p.inertia_kg_m2, b = p.viscous_friction_N_m_s_per_rad;
   const double kt = p.torque_constant_N_m_per_A, ktke = kt * p.back_emf_constant_V_s_per_rad;
-  // T_i·Kt/(J·s + B) = C_i·Kt / ((L·s + R + C_i)(J·s + B) + Kt·Ke), times s/s to keep every factor finite at ω → 0:
-  //   = (kp_i·s + ki_i)·Kt / (s·(L·s + R + kp_i)(J·s + B) + ki_i·(J·s + B) + Kt·Ke·s)
+  // L_s = C_s·e^(−sT)·T_i·Kt/(J·s + B), and T_i·Kt/(J·s + B) = C_i·e^(−sT)·Kt / ((L·s + R + C_i·e^(−sT))(J·s + B) + Kt·Ke), times s/s to keep every
+  // factor finite at ω → 0:
+  //   = (kp_i·s + ki_i)·Kt·e^(−sT) / (s·(L·s + R)(J·s + B) + (kp_i·s + ki_i)·e^(−sT)·(J·s + B) + Kt·Ke·s)
+  // The numerator's e^(−sT) and the speed controller's own are the loop's delay, 2T; the denominator's stays
+  // inside its factor.
   const std::vector<Factor> loop = {
       {[=](Complex s) { return Pi(speed, s); }, 1},
       {[=](Complex s) { return (current.kp * s + current.ki) * kt; }, 1},
-      {[=](Complex s) { return s * (l * s + r + current.kp) * (j * s + b) + current.ki * (j * s + b) + ktke * s; },
+      {[=](Complex s) {
+         return s * (l * s + r) * (j * s + b) + (current.kp * s + current.ki) * std::exp(-s * delay_s) * (j * s + b) +
+                ktke * s;
+       },
        -1}};
-  return MarginOf(loop, design);
+  return MarginOf(loop, design, 2.0 * delay_s);
 }
 
 }  // namespace coilspin::tune

@@ -65,6 +65,7 @@ Tuning TuneCascade(const MotorEstimate& e, const result::ModelParameters& parame
   const result::NamedMatrix covariance = result::FullCovariance(e);
   Tuning t;
   t.confidence = e.confidence;
+  t.loop_delay_s = request.loop_delay_s;
   const double wc = request.current_bandwidth_rad_s.value_or(DefaultCurrentBandwidth_rad_s(p));
   const double ws = request.speed_bandwidth_rad_s.value_or(DefaultSpeedBandwidth_rad_s(wc));
 
@@ -73,7 +74,7 @@ Tuning TuneCascade(const MotorEstimate& e, const result::ModelParameters& parame
   t.current.kp = Propagate(e, covariance, p, [wc](const model::MotorParameters& m) { return CurrentLoopGains(m, wc).kp; });
   t.current.ki = Propagate(e, covariance, p, [wc](const model::MotorParameters& m) { return CurrentLoopGains(m, wc).ki; });
   const PiGains current = CurrentLoopGains(p, wc);
-  t.current.margin = CurrentLoopMargin(p, current, wc);
+  t.current.margin = CurrentLoopMargin(p, current, wc, request.loop_delay_s);
 
   t.speed.bandwidth_rad_s = ws;
   t.speed.bandwidth_given = request.speed_bandwidth_rad_s.has_value();
@@ -81,7 +82,7 @@ Tuning TuneCascade(const MotorEstimate& e, const result::ModelParameters& parame
       Propagate(e, covariance, p, [wc, ws](const model::MotorParameters& m) { return SpeedLoopGains(m, wc, ws).kp; });
   t.speed.ki =
       Propagate(e, covariance, p, [wc, ws](const model::MotorParameters& m) { return SpeedLoopGains(m, wc, ws).ki; });
-  t.speed.margin = SpeedLoopMargin(p, current, SpeedLoopGains(p, wc, ws), ws);
+  t.speed.margin = SpeedLoopMargin(p, current, SpeedLoopGains(p, wc, ws), ws, request.loop_delay_s);
   return t;
 }
 

@@ -42,10 +42,14 @@ struct LoopTuning {
 struct TuningRequest {
   std::optional<double> current_bandwidth_rad_s;
   std::optional<double> speed_bandwidth_rad_s;
+  // The drive's delay from measuring to the applied voltage (sampling, computation,
+  // PWM) [s]: it costs phase in both margins (loop_margins.h), the gains keep their rules.
+  double loop_delay_s = 0.0;
 };
 
 struct Tuning {
   double confidence = 0.95;
+  double loop_delay_s = 0.0;  // as requested
   LoopTuning current, speed;
 };
 

@@ -25,6 +25,7 @@ struct BenchOptions {
   bool coast_voltage = true;
   bool step = false;                 // a free-shaft voltage step from rest to top_V
   std::uint64_t seed = 1;
+  double noise_scale = 1.0;          // 0: the same bench without noise (the truth a model should follow)
 };
 
 // An ideal machine: Kt = Ke in SI (physics: power balance).
@@ -41,12 +42,12 @@ inline model::MotorParameters IdealMotor(double r, double l, double k, double j,
   return m;
 }
 
-inline model::BenchConditions Noise(std::uint64_t seed, bool encoder) {
+inline model::BenchConditions Noise(std::uint64_t seed, bool encoder, double scale = 1.0) {
   model::BenchConditions b;
-  b.voltage_noise_sigma_V = 5e-3;
-  b.current_noise_sigma_A = 2e-3;
-  b.speed_noise_sigma_rad_s = encoder ? 0.0 : 0.2;
-  b.torque_noise_sigma_N_m = 2e-4;
+  b.voltage_noise_sigma_V = 5e-3 * scale;
+  b.current_noise_sigma_A = 2e-3 * scale;
+  b.speed_noise_sigma_rad_s = encoder ? 0.0 : 0.2 * scale;
+  b.torque_noise_sigma_N_m = 2e-4 * scale;
   b.encoder_counts_per_rev = encoder ? 2048 : 0;
   b.seed = seed;
   return b;
@@ -61,14 +62,14 @@ inline std::vector<joint::TestLog> SimulateBench(const model::MotorParameters& m
     p.hold_s = 0.3;
     p.log_torque = o.torque_column;
     logs.push_back({TestKind::kLockedRotor,
-                    ToBenchLog(model::SimulateLockedRotorPlateaus(m, p, Noise(o.seed, false)), "locked.csv")});
+                    ToBenchLog(model::SimulateLockedRotorPlateaus(m, p, Noise(o.seed, false, o.noise_scale)), "locked.csv")});
   }
   if (o.no_load) {
     model::NoLoadPlan p;
     for (double f : {0.25, 0.4, 0.55, 0.7, 0.85, 1.0}) p.supply_levels_V.push_back(f * top_V);
     p.hold_s = 1.0;
     p.shaft = shaft;
-    logs.push_back({TestKind::kNoLoad, ToBenchLog(model::SimulateNoLoad(m, p, Noise(o.seed + 1, o.encoder)), "noload.csv")});
+    logs.push_back({TestKind::kNoLoad, ToBenchLog(model::SimulateNoLoad(m, p, Noise(o.seed + 1, o.encoder, o.noise_scale)), "noload.csv")});
   }
   if (o.spin_down) {
     model::SpinDownPlan p;
@@ -77,7 +78,7 @@ inline std::vector<joint::TestLog> SimulateBench(const model::MotorParameters& m
     p.coast_s = 4.0;
     p.log_voltage = o.coast_voltage;
     p.shaft = shaft;
-    logs.push_back({TestKind::kSpinDown, ToBenchLog(model::SimulateSpinDown(m, p, Noise(o.seed + 2, o.encoder)), "coast.csv")});
+    logs.push_back({TestKind::kSpinDown, ToBenchLog(model::SimulateSpinDown(m, p, Noise(o.seed + 2, o.encoder, o.noise_scale)), "coast.csv")});
   }
   if (o.step) {
     // A fast logger: 20 samples per electrical time constant, three mechanical ones logged.
@@ -87,7 +88,7 @@ inline std::vector<joint::TestLog> SimulateBench(const model::MotorParameters& m
     p.pre_step_s = 20.0 * p.sample_period_s;
     p.hold_s = 3.0 * m.inertia_kg_m2 * m.resistance_ohm / (m.back_emf_constant_V_s_per_rad * m.torque_constant_N_m_per_A);
     p.shaft = shaft;
-    logs.push_back({TestKind::kStep, ToBenchLog(model::SimulateStep(m, p, Noise(o.seed + 3, o.encoder)), "step.csv")});
+    logs.push_back({TestKind::kStep, ToBenchLog(model::SimulateStep(m, p, Noise(o.seed + 3, o.encoder, o.noise_scale)), "step.csv")});
   }
   return logs;
 }

@@ -12,10 +12,13 @@ Usage: tune_check.py RESULT.json TUNING.json
    loop a lag tau2 = 1/wc moved by the half rule into theta = tau2/2 and
    tau1' = tau1 + tau2/2; Kc = tau1'/(k (tauc + theta)), tauI = min(tau1', 4 (tauc + theta)),
    tauc = 1/ws; parallel form kp = Kc, ki = Kc/tauI. Agreement to 1e-9.
-2. Phase margins from scipy.signal.freqresp of the open loops built here from the
-   parameters (back-EMF coupling included), phase unwrapped from low frequency:
-   agreement with the file to 0.05 degrees.
-3. Closed-loop steps with scipy.signal.lsim:
+2. Phase margins from the open loops' frequency responses built here from the
+   parameters (back-EMF coupling included; the polynomials evaluated at jw with
+   numpy.polyval, and with the file's loop_delay_s T each controller's output
+   times e^(-jwT): the current loop's, inside the closed current loop too, and
+   the speed loop's), phase unwrapped from low
+   frequency: agreement with the file to 0.05 degrees.
+3. Closed-loop steps with scipy.signal.lsim (of the design, without the delay):
    a. current loop, shaft locked: i(1/wc) = 1 - e^-1 of the step, to 1 %
       (the design is exactly first order there);
    b. the cascade, shaft free: a speed step settles (error below 1 % after
@@ -35,20 +38,25 @@ import numpy as np
 from scipy import optimize, signal
 
 
-def margin(num, den, w_design):
-    """Crossover frequency and phase margin of the open loop num/den (polynomials in s)."""
+def margin(response, integrators, w_design):
+    """Crossover frequency and phase margin of the open loop whose response at w is response(w).
+
+    integrators: m, the loop's integrators; at low frequency the loop is c/s^m with c > 0,
+    phase near -90 m degrees, which fixes the branch of the unwrapped phase."""
     w = np.logspace(math.log10(w_design) - 4, math.log10(w_design) + 4, 8001)
-    _, h = signal.freqresp(signal.TransferFunction(num, den), w)
+    h = response(w)
     mag = np.abs(h)
     k = np.nonzero((mag[:-1] >= 1) & (mag[1:] < 1))[0][0]
-    f = lambda lw: abs(signal.freqresp(signal.TransferFunction(num, den), [10 ** lw])[1][0]) - 1
+    f = lambda lw: abs(response(np.array([10 ** lw]))[0]) - 1
     wx = 10 ** optimize.brentq(f, math.log10(w[k]), math.log10(w[k + 1]), xtol=1e-14)
     phase = np.unwrap(np.angle(h))
-    # Branch: at low frequency the loop is c/s^m with c > 0 (m integrators), phase near -90 m degrees.
-    m = (len(den) - len(np.trim_zeros(den, "b"))) - (len(num) - len(np.trim_zeros(num, "b")))
-    phase += 2 * math.pi * round((-m * math.pi / 2 - phase[0]) / (2 * math.pi))
+    phase += 2 * math.pi * round((-integrators * math.pi / 2 - phase[0]) / (2 * math.pi))
     ph = np.interp(math.log10(wx), np.log10(w), phase)
     return wx, 180.0 + math.degrees(ph)
+
+
+def integrators(num, den):
+    return (len(den) - len(np.trim_zeros(den, "b"))) - (len(num) - len(np.trim_zeros(num, "b")))
 
 
 def main():
@@ -59,6 +67,8 @@ def main():
     r, l, ke, kt, j = p["resistance"], p["inductance"], p["back_emf_constant"], p["torque_constant"], p["inertia"]
     b = p.get("viscous_friction", 0.0)
     cl, sl = tuning["current_loop"], tuning["speed_loop"]
+    delay = tuning.get("loop_delay_s", 0.0)
+    print(f"loop delay: {delay:g} s")
     wc, ws = 2 * math.pi * cl["bandwidth_hz"], 2 * math.pi * sl["bandwidth_hz"]
     failures = []
 
@@ -84,17 +94,29 @@ def main():
     close("speed ki [A/rad]", sl["ki"]["value"], kc / tau_i, 1e-9)
     kps, kis = sl["kp"]["value"], sl["ki"]["value"]
 
-    # 2. Phase margins. Current loop: (kp s + ki)/s * (J s + B)/((L s + R)(J s + B) + Kt Ke).
+    # 2. Phase margins. Current loop: (kp s + ki)/s * e^(-sT) * (J s + B)/((L s + R)(J s + B) + Kt Ke).
     num_i = np.polymul([kpi, kii], [j, b])
     den_i = np.polymul([1, 0], np.polyadd(np.polymul([l, r], [j, b]), [kt * ke]))
-    _, pm_i = margin(num_i, den_i, wc)
+    late = lambda w: np.exp(-1j * w * delay)
+    resp_i = lambda w: np.polyval(num_i, 1j * w) / np.polyval(den_i, 1j * w) * late(w)
+    _, pm_i = margin(resp_i, integrators(num_i, den_i), wc)
     close("current-loop phase margin [deg]", cl["phase_margin_deg"], pm_i, 0.05 / pm_i)
-    # Speed loop: C_s * C_i Kt / ((L s + R + C_i)(J s + B) + Kt Ke), multiplied through by s twice.
+    # Speed loop: C_s e^(-sT) * C_i e^(-sT) Kt / ((L s + R + C_i e^(-sT))(J s + B) + Kt Ke), the speed controller's
+    # output delayed by T as the current controller's is; multiplied through by s twice:
+    # num = (kps s + kis)(kpi s + kii) Kt e^(-2sT), den = s (s (L s + R)(J s + B) + (kpi s + kii) e^(-sT) (J s + B) + Kt Ke s).
     num_s = np.polymul(np.polymul([kps, kis], [kpi, kii]), [kt])
-    inner = np.polyadd(np.polyadd(np.polymul([1, 0], np.polymul([l, r + kpi], [j, b])), np.polymul([kii], [j, b])),
-                       [kt * ke, 0])
+    winding_shaft = np.polymul([1, 0], np.polymul([l, r], [j, b]))
+    drive = np.polymul([kpi, kii], [j, b])
+    emf = [kt * ke, 0]
+    inner = np.polyadd(np.polyadd(winding_shaft, drive), emf)  # without the delay: for the count of integrators
     den_s = np.polymul([1, 0], inner)
-    _, pm_s = margin(num_s, den_s, ws)
+
+    def resp_s(w):
+        s_ = 1j * w
+        den = s_ * (np.polyval(winding_shaft, s_) + np.polyval(drive, s_) * late(w) + np.polyval(emf, s_))
+        return np.polyval(num_s, s_) * late(w) ** 2 / den
+
+    _, pm_s = margin(resp_s, integrators(num_s, den_s), ws)
     close("speed-loop phase margin [deg]", sl["phase_margin_deg"], pm_s, 0.05 / pm_s)
 
     # 3a. Current loop, shaft locked: x = [i, z], z = integral of (i* - i).

@@ -50,6 +50,27 @@ TEST(CascadeDesign, WithoutBackEmfTheCurrentLoopIsAnIntegratorWithNinetyDegrees)
   EXPECT_NEAR(m->phase_margin_deg, 90.0, 1e-6);
 }
 
+TEST(CascadeDesign, ALoopDelayTakesOmegaTimesDelayFromTheMargin) {
+  // ωc/s·e^(−sT): |L| = ωc/ω is untouched, so the crossover stays at ωc, and ∠e^(−jωT) = −ωT
+  // there: margin 90° − ωc·T·180°/π (physics of a pure delay; Åström & Murray, "Feedback
+  // Systems", the phase of a time delay, from memory). 75 µs at ωc = 3000 rad/s: 12.89°.
+  model::MotorParameters p = Motor();
+  p.back_emf_constant_V_s_per_rad = 1e-12;
+  const double wc = 3000.0, delay_s = 75e-6;
+  const auto m = tune::CurrentLoopMargin(p, tune::CurrentLoopGains(p, wc), wc, delay_s);
+  ASSERT_TRUE(m);
+  EXPECT_NEAR(m->crossover_rad_s, wc, 1e-6 * wc);
+  EXPECT_NEAR(m->phase_margin_deg, 90.0 - wc * delay_s * 180.0 / M_PI, 1e-6);
+  // The speed loop: its own delay costs ω·T at its crossover (the closed current loop passes its delay
+  // almost unchanged in phase well below ωc): some 1.2° at ωx ≈ 290 rad/s, checked against SciPy end to end.
+  const double ws = 300.0;
+  const tune::PiGains speed = tune::SpeedLoopGains(Motor(), wc, ws);
+  const auto without = tune::SpeedLoopMargin(Motor(), tune::CurrentLoopGains(Motor(), wc), speed, ws);
+  const auto with = tune::SpeedLoopMargin(Motor(), tune::CurrentLoopGains(Motor(), wc), speed, ws, delay_s);
+  ASSERT_TRUE(without && with);
+  EXPECT_LT(with->phase_margin_deg, without->phase_margin_deg - 0.5 * without->crossover_rad_s * delay_s * 180.0 / M_PI);
+}
+
 TEST(CascadeDesign, SpeedLoopIsSimcIntegratingWhenThereIsNoFriction) {
   // Skogestad 2003 (from memory), integrating process k'·e^(−θs)/s: Kc = 1/(k'(τc + θ)), τI = 4(τc + θ),
   // here k' = Kt/J and θ = 1/(2ωc) (half rule on the current loop's lag).
@@ -123,6 +144,19 @@ TEST(TuneCommand, GainsMarginsAndStepsAgreeWithTheTextbookAndSciPy) {
       std::string(COILSPIN_PYTHON) + " '" + COILSPIN_TEST_SOURCE_DIR + "/handoff/tune_check.py' '" + result.string() +
       "' '" + (folder.path() / "given.json").string() + "' 2>&1; echo \"exit $?\"");
   EXPECT_NE(again.find("exit 0"), std::string::npos) << again;
+  // A loop delay of 100 µs: the margins against SciPy's response times e^(−jωT) (tune_check.py).
+  ASSERT_EQ(RunCoilspin("tune '" + result.string() + "' --loop-delay 100e-6 --json delayed.json --quiet", folder.path())
+                .status,
+            0);
+  const auto delayed = nlohmann::json::parse(Slurp(folder.path() / "delayed.json"));
+  EXPECT_EQ(delayed["loop_delay_s"], 100e-6);
+  EXPECT_LT(delayed["current_loop"]["phase_margin_deg"].get<double>(),
+            tuning["current_loop"]["phase_margin_deg"].get<double>() - 10.0);  // ωc·T ≈ 0.84 rad ≈ 48° at 1336 Hz
+  const std::string late = test_support::RunCapture(
+      std::string(COILSPIN_PYTHON) + " '" + COILSPIN_TEST_SOURCE_DIR + "/handoff/tune_check.py' '" + result.string() +
+      "' '" + (folder.path() / "delayed.json").string() + "' 2>&1; echo \"exit $?\"");
+  EXPECT_NE(late.find("exit 0"), std::string::npos) << late;
+  EXPECT_EQ(RunCoilspin("tune '" + result.string() + "' --loop-delay -1e-6", folder.path()).status, 2);
 }
 
 TEST(TuneCommand, MissingParametersAreExitOneAndBadBandwidthsExitTwo) {

@@ -31,12 +31,14 @@ check "manual page lists export" grep -q 'export' "$prefix/share/man/man1/coilsp
 check "bash completion in share/bash-completion/completions/" test -f "$prefix/share/bash-completion/completions/coilspin"
 
 mkdir "$work/elsewhere"
-(cd "$work/elsewhere" && env -u COILSPIN_DEMO_DIR "$prefix/bin/coilspin" demo --json demo.json >out.txt 2>err.txt) || true
+(cd "$work/elsewhere" && env -u COILSPIN_DEMO_DIR "$prefix/bin/coilspin" demo --json demo.json --report demo.html >out.txt 2>err.txt) || true
 check "installed demo fits the installed session" \
   grep -qF "coilspin demo: fitting $prefix/share/coilspin/demo/session.toml" "$work/elsewhere/err.txt"
 check "installed demo prints the table" grep -qE 'resistance +R +1\.37[0-9]+ +ohm' "$work/elsewhere/out.txt"
 check "installed demo verifies its installed datasheet" \
   grep -qF "($prefix/share/coilspin/demo/datasheet.toml)" "$work/elsewhere/out.txt"
+check "installed demo writes its report with the charting library inside" \
+  grep -qF "Charts drawn by dygraphs" "$work/elsewhere/demo.html"
 check "installed demo lot is installed" test -f "$prefix/share/coilspin/demo/lot/motor-0104.toml"
 check "installed demo's result conforms to the format-2 schema" \
   "$python" "$source/tests/tools/validate_result.py" "$source/docs/result-format-2.schema.json" "$work/elsewhere/demo.json"
