@@ -331,6 +331,7 @@ class LeastSquaresProblem {
                             RawEvaluation evaluate, BlockCopier copier);
   void AttachCost(ceres::CostFunction* cost);  // to the block NewBlock made last
   std::vector<Eigen::VectorXd> RawResiduals(bool with_offsets, bool* evaluated) const;
+  double WeightedCost(bool* evaluated) const;  // Σ_g ‖r_g‖²/σ_g² at the current values
 
   // Solving (solve.cc), the covariance step (analysis.cc) and the result (report.cc).
   std::vector<int> EstimatedParameters() const;
