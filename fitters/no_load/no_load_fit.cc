@@ -64,7 +64,7 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
                       p.begin,               p.end};
       if (std::fabs(q.mean_speed_rad_s) > kTurningSpeedSigmas * std::max(speed_noise, q.speed_std_rad_s)) {
         nl.plateaus.push_back(q);
-        if (!s.settled) {
+        if (!s.settled && s.trend_standard_errors > kStillSettlingStandardErrors) {
           ++unsettled;
           worst_trend = std::max(worst_trend, s.trend_standard_errors);
         }

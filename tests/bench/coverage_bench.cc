@@ -32,6 +32,8 @@
 //   coverage_bench joint|real|real-nostep N wald|profile|bootstrap
 //       The same with the named interval method (default wald; bootstrap:
 //       kBootstrapReplicates replicates).
+//   coverage_bench one real|real-nostep MOTOR BENCH
+//       Fits one real-rig bench and prints every estimate and warning.
 //   coverage_bench N          the same as `coverage_bench joint N` (older form).
 // Motors and benches: coverage_motors.h, coverage_real_rig.h; tallies and tables: coverage_tally.h.
 
@@ -309,6 +311,30 @@ int main(int argc, char** argv) {
              return joint::FitMotor(bench::JointBench(m, kJointSeedBase + kSeedStride * k, scale),
                                     OptionsFor(m, bench::kJointEncoderCountsPerRev, *method));
            });
+    return 0;
+  }
+  if (mode == "one" && argc == 5) {  // one real|real-nostep MOTOR BENCH: one bench's fit, every estimate
+    const bool with_steps = std::string(argv[2]) == "real";
+    const std::vector<bench::Motor> motors = bench::JointMotors();
+    const int motor = std::atoi(argv[3]), k = std::atoi(argv[4]);
+    if (motor < 0 || motor >= static_cast<int>(motors.size()) || k < 0) return Usage();
+    const std::uint64_t seed = kRealSeedBase + kMotorSeedStride * static_cast<std::uint64_t>(motor) +
+                               kSeedStride * static_cast<std::uint64_t>(k);
+    const MotorEstimate e = joint::FitMotor(bench::RealRigSession(motors[motor], seed, with_steps),
+                                            OptionsFor(motors[motor], bench::kJointEncoderCountsPerRev,
+                                                       joint::IntervalMethod::kWald));
+    for (const QuantityEstimate& q : e.parameters)
+      std::printf("%-20s %.9g +- %.3g [%.9g, %.9g]\n", q.key.c_str(), q.value, q.std_error, q.ci_low, q.ci_high);
+    for (const std::string& w : e.warnings) std::printf("warning: %s\n", w.c_str());
+    for (const SolverSummary& v : e.solver)
+      std::printf("solver: %s, %s, %d iterations, cost %.9g -> %.9g\n", v.converged ? "converged" : "not converged",
+                  v.termination.c_str(), v.iterations, v.initial_cost, v.final_cost);
+    for (const TestSummary& t : e.tests) {
+      std::printf("test %s: %s\n", t.file.c_str(), t.method.c_str());
+      for (const ChannelResidual& r : t.residuals)
+        std::printf("    %s rms %.6g sigma %.6g lag1 %.3f over %d\n", r.channel.c_str(), r.rms, r.sigma,
+                    r.lag1_autocorrelation, r.samples);
+    }
     return 0;
   }
   if (mode == "dump" && argc == 6) {  // dump real|real-nostep MOTOR BENCH FOLDER: one bench's logs as CSV
