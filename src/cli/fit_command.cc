@@ -4,11 +4,13 @@
 #include <cstdio>
 #include <cstdlib>
 #include <ostream>
+#include <stdexcept>
 
 #include "fitters/core/bootstrap_progress.h"
 #include "fitters/joint/motor_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/output_path.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
 #include "src/ingest/read_bench_log.h"
@@ -79,11 +81,14 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--unit", a->unit_specs, "Unit of a quantity whose header names none, e.g. --unit current=mA");
   c->add_option("--require", a->required,
                 "Parameter that must be determined (else exit status 1), e.g. --require inductance");
-  c->add_option("--json", a->json_path, "Write the result file (coilspin.result/1) here, atomically");
+  c->add_option("--json", a->json_path,
+                "Write the result file (coilspin.result/1) here, atomically; - writes it to standard output "
+                "instead of the table");
   c->add_flag("--quiet", a->quiet, "Print no table");
 }
 
 int RunFit(const FitArguments& a, std::ostream& out) {
+  if (a.json_path) RequireOutputPath("--json", *a.json_path);
   std::optional<Session> session;
   if (!a.session_path.empty()) session = LoadSession(a.session_path);
 
@@ -184,8 +189,14 @@ int RunFit(const FitArguments& a, std::ostream& out) {
       if (missing == key && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
         undetermined.push_back(key);
 
-  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::ResultJson(estimate));
-  if (!a.quiet) out << output::ParameterTable(estimate);
+  const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
+  if (json_on_stdout) {
+    out << output::ResultJson(estimate);
+    if (!out.flush()) throw std::runtime_error("cannot write the result to standard output");
+  } else if (a.json_path) {
+    output::WriteFileAtomically(*a.json_path, output::ResultJson(estimate));
+  }
+  if (!a.quiet && !json_on_stdout) out << output::ParameterTable(estimate);
   return undetermined.empty() ? kSuccess : kUndetermined;
 }
 

@@ -31,14 +31,15 @@ struct FitArguments {
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined
-  std::string json_path;
+  std::optional<std::string> json_path;  // "-": the result file on stdout (and no table there)
   bool quiet = false;
 };
 
 // Declares the fit options on `command` (a CLI11 subcommand).
 void DeclareFitOptions(CLI::App* command, FitArguments* arguments);
 
-// Runs the fit: table on `out` unless quiet, result file when asked.
+// Runs the fit: table on `out` unless quiet or the result file goes to `out`
+// (--json -), result file when asked (its path checked before any log is read).
 // Throws InputError for bad input (nothing written); returns 0 or 1.
 int RunFit(const FitArguments& arguments, std::ostream& out);
 

@@ -33,7 +33,8 @@ int main(int argc, char** argv) {
 
   cli::FitArguments demo;
   CLI::App* demo_command = app.add_subcommand("demo", "Fit the bundled demo motor and print its parameter table");
-  demo_command->add_option("--json", demo.json_path, "Also write the result file here");
+  demo_command->add_option("--json", demo.json_path,
+                           "Also write the result file here; - writes it to standard output instead of the table");
 
   cli::SimulateArguments simulate;
   CLI::App* simulate_command = app.add_subcommand("simulate", "Write a synthetic bench log from a parameter set");

@@ -11,6 +11,7 @@
 
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/model/free_shaft_plan_defaults.h"
 #include "src/model/simulate_locked_rotor.h"
@@ -292,7 +293,7 @@ void AddShaftNotes(const model::BenchConditions& bench, output::CsvStyle& style)
 void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_option("kind", a->kind, "Test to simulate: locked-rotor, no-load, spin-down or step (free-shaft voltage step)")
       ->required();
-  c->add_option("--out", a->out_path, "CSV file to write (atomically)")->required();
+  c->add_option("--out", a->out_path, "CSV file to write (atomically); - writes it to standard output")->required();
   // The motor (SI). Every kind needs R and L; no-load, spin-down and step also Ke and J.
   c->add_option("--resistance", a->motor.resistance_ohm, "R [ohm] at the winding's starting temperature")
       ->required()->check(CLI::PositiveNumber);
@@ -385,6 +386,7 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
 }
 
 int RunSimulate(const SimulateArguments& a) {
+  RequireOutputPath("--out", a.out_path);
   const Kind kind = KindOf(a.kind);
   RejectInapplicable(a, kind);
   const model::MotorParameters motor = MotorFor(a, kind);

@@ -28,6 +28,9 @@ enum class InputErrorKind {
   kBadOption,
   kBadSession,
   kDuplicateColumn,  // two header cells name the same quantity
+  kBadOutputPath,    // an output file that cannot be written there (checked before the work)
+  kTooLarge,         // a request or a log beyond what the machine or a stated cap allows
+  kOutOfRange,       // a value outside what physics allows (a temperature below copper's −234.5 °C)
 };
 
 std::string_view InputErrorKindName(InputErrorKind kind);
