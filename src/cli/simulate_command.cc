@@ -14,6 +14,7 @@
 #include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/model/free_shaft_plan_defaults.h"
+#include "src/model/sample_plan.h"
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_spin_down.h"
@@ -155,6 +156,21 @@ std::string Text(double value) {
   return text.str();
 }
 
+// Refuses, before anything is simulated, a log of more than model::kMaxSimulatedSamples
+// samples (`span_s` in all at `sample_period_s`), saying which options set its length.
+void RequireWithinSampleCap(double span_s, double sample_period_s, const std::string& shorter) {
+  const double samples = span_s / sample_period_s;
+  if (samples <= static_cast<double>(model::kMaxSimulatedSamples)) return;
+  Bad("the log would hold " + Text(samples) + " samples (" + Text(span_s) + " s at " + Text(sample_period_s) +
+      " s per sample), more than simulate writes (" + std::to_string(model::kMaxSimulatedSamples) +
+      "); ask for less: " + shorter);
+}
+
+// How a default span was chosen, for the message above.
+std::string DefaultNote(bool given, const std::string& option, double default_s, const std::string& what) {
+  return given ? "" : " (" + option + " defaults to " + what + ", " + Text(default_s) + " s)";
+}
+
 // --step FROM:TO, the supply [V] before and after the step.
 std::pair<double, double> StepLevels(const std::string& spec) {
   const std::string usage = "--step expects FROM:TO volts, e.g. 0:12, got '" + spec + "'";
@@ -182,6 +198,8 @@ model::SampledLog LockedRotorLog(const SimulateArguments& a, const model::MotorP
     plan.before_s = a.before_s.value_or(kStepBefore_s);
     plan.after_s = a.after_s.value_or(kLockedStepAfter_s);
     plan.sample_period_s = a.sample_period_s.value_or(kStepSamplePeriod_s);
+    RequireWithinSampleCap(plan.before_s + plan.after_s, plan.sample_period_s,
+                           "a shorter --before or --after, or a longer --sample-period");
     style.comment_lines.push_back("simulated locked-rotor step capture (coilspin simulate)");
     return model::SimulateLockedRotorStep(motor, plan, bench);
   }
@@ -190,6 +208,8 @@ model::SampledLog LockedRotorLog(const SimulateArguments& a, const model::MotorP
   plan.supply_levels_V = a.levels_V;
   plan.hold_s = a.hold_s.value_or(kPlateauHold_s);
   plan.sample_period_s = a.sample_period_s.value_or(kPlateauSamplePeriod_s);
+  RequireWithinSampleCap(static_cast<double>(plan.supply_levels_V.size()) * plan.hold_s, plan.sample_period_s,
+                         "fewer --levels, a shorter --hold, or a longer --sample-period");
   plan.log_temperature = a.log_temperature;
   plan.log_torque = a.log_torque;
   style.comment_lines.push_back("simulated locked-rotor plateaus (coilspin simulate)");
@@ -203,6 +223,9 @@ model::SampledLog NoLoadLog(const SimulateArguments& a, const model::MotorParame
   plan.supply_levels_V = a.levels_V;
   plan.hold_s = a.hold_s ? *a.hold_s : model::SettlingTime_s(motor, bench);
   plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
+  RequireWithinSampleCap(static_cast<double>(plan.supply_levels_V.size()) * plan.hold_s, plan.sample_period_s,
+                         "fewer --levels, a shorter --hold, or a longer --sample-period" +
+                             DefaultNote(a.hold_s.has_value(), "--hold", plan.hold_s, "the settling time"));
   plan.shaft = ShaftFor(a);
   plan.log_temperature = a.log_temperature;
   style.comment_lines.push_back("simulated no-load levels held " + Text(plan.hold_s) + " s each (coilspin simulate)");
@@ -222,6 +245,10 @@ model::SampledLog SpinDownLog(const SimulateArguments& a, const model::MotorPara
     Bad(std::string(e.what()) + " with --coast");
   }
   plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
+  RequireWithinSampleCap(plan.run_s + plan.coast_s, plan.sample_period_s,
+                         "a shorter --run or --coast, or a longer --sample-period" +
+                             DefaultNote(a.run_s.has_value(), "--run", plan.run_s, "the settling time") +
+                             DefaultNote(a.coast_s.has_value(), "--coast", plan.coast_s, "the time to rest"));
   plan.log_voltage = !a.no_coast_voltage;
   plan.log_current = !a.no_coast_current;
   plan.shaft = ShaftFor(a);
@@ -247,7 +274,14 @@ model::SampledLog StepLog(const SimulateArguments& a, const model::MotorParamete
   plan.pre_step_s = a.before_s.value_or(kStepBefore_s);
   plan.hold_s = a.after_s.value_or(settling_s);
   plan.sample_period_s = a.sample_period_s ? *a.sample_period_s : model::StepSamplePeriod_s(motor, bench);
+  RequireWithinSampleCap(plan.settle_s + plan.pre_step_s + plan.hold_s, plan.sample_period_s,
+                         "a shorter --after, --before or --settle, or a longer --sample-period" +
+                             DefaultNote(a.after_s.has_value(), "--after", plan.hold_s, "the settling time") +
+                             (plan.settle_s > 0.0 ? DefaultNote(a.settle_s.has_value(), "--settle", plan.settle_s,
+                                                                "the settling time")
+                                                  : std::string()));
   plan.shaft = ShaftFor(a);
+
   plan.log_temperature = a.log_temperature;
   const std::string start =
       plan.initial_supply_V == 0.0
