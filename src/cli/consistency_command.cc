@@ -57,6 +57,19 @@ units::MotorConstant ParseFlag(const FlagInfo& info, const std::string& text) {
     BadOption(std::string(info.flag) + " expects a positive " + std::string(units::ConstantKindName(info.kind)) +
               ", got '" + constant.as_given + "'");
   }
+  // In SI (and, for Kv, as Ke = 1/Kv) the figure must stay a positive finite double: 1e-308 rpm/V would
+  // give Ke = inf, and the check would answer with infinities.
+  const double si = constant.kind == ConstantKind::kTorqueConstant ? constant.value_si
+                                                                   : units::BackEmfConstantOf_V_s_per_rad(constant);
+  if (!(std::isfinite(constant.value_si) && constant.value_si > 0.0 && std::isfinite(si) && si > 0.0)) {
+    BadOption(std::string(info.flag) + " '" + constant.as_given + "' is too " +
+              (constant.value_si > 1.0 ? "large" : "small") + ": " +
+              (constant.kind == ConstantKind::kSpeedConstant ? "Ke = 1/Kv" : "its value") + " in " +
+              std::string(units::SiUnitOf(constant.kind == ConstantKind::kTorqueConstant
+                                              ? ConstantKind::kTorqueConstant
+                                              : ConstantKind::kBackEmfConstant)) +
+              " is beyond the range of a double; check the figure and its unit");
+  }
   return constant;
 }
 
@@ -134,6 +147,11 @@ int RunConsistency(const ConsistencyArguments& a, std::ostream& out) {
   const units::MotorConstant kt = ParseFlag(kTorqueFlag, a.torque_constant);
   const units::MotorConstant ke = a.back_emf_constant.empty() ? ParseFlag(kSpeedFlag, a.speed_constant)
                                                               : ParseFlag(kBackEmfFlag, a.back_emf_constant);
+  const double kt_over_ke = kt.value_si / units::BackEmfConstantOf_V_s_per_rad(ke);
+  if (!(std::isfinite(kt_over_ke) && kt_over_ke > 0.0)) {
+    BadOption("Kt/Ke of '" + kt.as_given + "' and '" + ke.as_given +
+              "' is beyond the range of a double; check the figures and their units");
+  }
   const check::DatasheetKtKe check = check::CheckDatasheetKtKe(kt, ke, tolerance);
   const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
   if (json_on_stdout) {

@@ -10,6 +10,7 @@
 #include "fitters/joint/motor_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/number_checks.h"
 #include "src/cli/output_path.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
@@ -49,27 +50,30 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--spin-down", a->spin_down_files, "Spin-down log (run up, then an open-circuit coast); repeatable");
   c->add_option("--step", a->step_files, "Free-shaft voltage step log; repeatable");
   c->add_option("--cpr", a->counts_per_rev, "Encoder counts per revolution, for position [counts]")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--gear-ratio", a->gear_ratio, "Motor turns per output turn when speed is read at a gearbox output")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--winding-temperature", a->winding_temperature_degC,
-                "Winding temperature during the locked-rotor test [degC], when not logged");
+                "Winding temperature during the locked-rotor test [degC], when not logged")
+      ->check(WindingTemperature());
   c->add_option("--reference-temperature", a->reference_temperature_degC,
-                "Temperature [degC] to which resistance is corrected");
+                "Temperature [degC] to which resistance is corrected")
+      ->check(WindingTemperature());
   c->add_option("--known-inertia", a->known_inertia_kg_m2, "Inertia of the rotating assembly [kg*m^2], when known")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--at-voltage", a->at_voltage_V,
                 "Operating voltage [V] of the derived quantities (default: the highest settled level logged)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--tolerance", a->tolerance, "Kt/Ke consistency tolerance, e.g. 0.05 for 1 +/- 5 %")
-      ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
+      ->check(OpenInterval(0.0, 1.0));
   c->add_option("--confidence", a->confidence, "Two-sided interval level, e.g. 0.95")
-      ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
+      ->check(OpenInterval(0.0, 1.0));
   c->add_option("--intervals", a->intervals,
                 "Interval method: wald (default; Student-t, widened for autocorrelated residuals), profile "
                 "(profile likelihood), bootstrap (moving-block, percentile)")
       ->check(CLI::IsMember({"wald", "profile", "bootstrap"}));
-  c->add_option("--replicates", a->replicates, "Bootstrap replicates (default 200)")->check(CLI::Range(10, 100000));
+  c->add_option("--replicates", a->replicates, "Bootstrap replicates (default 200)")
+      ->check(WholeNumberFromTo(10, 100000));
   c->add_option("--seed", a->seed, "Bootstrap seed (fixed by default, so results are reproducible)");
   c->add_option("--robust", a->robust, "Robust loss for logs with spikes: huber or cauchy (reported in the result)")
       ->check(CLI::IsMember({"huber", "cauchy"}));

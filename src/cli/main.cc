@@ -2,13 +2,16 @@
 // bench logs. This file is the only place that maps failures to exit codes.
 
 #include <CLI/CLI.hpp>
+#include <csignal>
 #include <cstdlib>
 #include <iostream>
+#include <new>
 
 #include "src/cli/consistency_command.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
+#include "src/cli/unknown_option.h"
 #include "src/ingest/input_error.h"
 
 namespace {
@@ -45,6 +48,12 @@ int main(int argc, char** argv) {
       app.add_subcommand("consistency", "Check a datasheet's torque and back-EMF constants against Kt = Ke (SI)");
   cli::DeclareConsistencyOptions(consistency_command, &consistency);
 
+  // A reader that closes the pipe early (`coilspin fit ... --json - | head`) makes a write fail, not a signal.
+  std::signal(SIGPIPE, SIG_IGN);
+  if (const auto unknown = cli::UnknownOptionMessage(app, argc, argv)) {
+    std::cerr << "coilspin: error: " << *unknown << "\n";
+    return cli::kBadInput;
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -64,6 +73,12 @@ int main(int argc, char** argv) {
     return cli::kBadInput;
   } catch (const std::runtime_error& e) {  // a file that could not be written
     std::cerr << "coilspin: error: " << e.what() << "\n";
+    return cli::kBadInput;
+  } catch (const std::bad_alloc&) {  // the memory check before a fit (fit_command.cc) keeps this rare
+    std::cerr << "coilspin: error: out of memory; give smaller logs or free memory\n";
+    return cli::kBadInput;
+  } catch (const std::exception& e) {  // a bug: every input problem is an InputError; still no abort
+    std::cerr << "coilspin: internal error: " << e.what() << " (please report it with the command and its input)\n";
     return cli::kBadInput;
   }
   return cli::kBadInput;
