@@ -65,6 +65,7 @@
 #include <vector>
 
 #include "fitters/core/input_noise_autocovariance.h"
+#include "fitters/core/progress.h"
 #include "fitters/core/quantisation.h"
 #include "fitters/core/robust_loss.h"
 
@@ -242,6 +243,11 @@ class LeastSquaresProblem {
 
   FitResult Solve(const SolveOptions& options);
 
+  // Solve reports each solve (ProgressStage::kSolving) and the covariance step
+  // to `progress` (empty: silent). Not copied by Clone(), so refits of clones
+  // on other threads never report.
+  void SetProgress(Progress progress);
+
   // Current values (physical) of all parameters, e.g. after Solve.
   std::vector<double> Values() const;
 
@@ -358,6 +364,7 @@ class LeastSquaresProblem {
   std::vector<std::unique_ptr<Group>> groups_;
   std::vector<std::unique_ptr<Block>> blocks_;  // in order of addition
   RobustLoss loss_ = RobustLoss::kSquared;      // set by each Solve from its options
+  Progress progress_;                           // SetProgress
 };
 
 template <class Model>

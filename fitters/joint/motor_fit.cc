@@ -228,14 +228,20 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   }
 
   // 1. Each test plans what it can determine.
+  const int num_tests = static_cast<int>(tests.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, 0, num_tests);
   locked_rotor::LockedRotorOptions lr_options = options.locked_rotor;
   lr_options.confidence = options.confidence;
   locked_rotor::LockedRotorPlan lr;
   if (!locked.empty()) lr = locked_rotor::PlanLockedRotor(locked, lr_options, &e);
+  int planned = static_cast<int>(locked.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, planned, num_tests);
   std::optional<double> count_rad;  // one encoder count at the motor shaft
   if (options.counts_per_rev) count_rad = units::kRadiansPerRevolution * options.gear_ratio / *options.counts_per_rev;
   spin_down::SpinDownPlan sd;
   if (!coasts.empty()) sd = spin_down::PlanSpinDown(coasts, count_rad, &e);
+  planned += static_cast<int>(coasts.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, planned, num_tests);
   step::StepTestPlan st;
   if (!steps.empty()) {
     const std::optional<double> reference_degC =
@@ -243,6 +249,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     st = step::PlanStep(steps, count_rad, {reference_degC, lr_options.winding_temperature_degC},
                         lr.brush_drop_start_V, &e);
   }
+  planned += static_cast<int>(steps.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, planned, num_tests);
   no_load::NoLoadPlan nl;
   if (!free_plateaus.empty())
     nl = no_load::PlanNoLoad(free_plateaus, speeds,
@@ -250,6 +258,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                              lr.brush_drop_start_V, {lr.reference_degC, lr_options.winding_temperature_degC},
                              sd.measures_back_emf ? std::optional<double>(sd.back_emf_start) : std::nullopt,
                              NoLoadPlateauOptions(lr_options.plateaus), &e);
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, num_tests, num_tests);
 
   // 2. The mechanical basis.
   const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf || st.usable;
@@ -273,6 +282,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
 
   // 3. One problem.
   core::LeastSquaresProblem problem;
+  problem.SetProgress(options.progress);
   core::SharedParameters parameters(&problem);
   locked_rotor::AddLockedRotor(&lr, &parameters);
   no_load::AddNoLoad(&nl, kt_name, &parameters);
@@ -303,13 +313,13 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (fit.usable && options.intervals.method == IntervalMethod::kProfile) {
     std::vector<std::string> names;
     for (const auto& info : kPhysical) names.push_back(info.key);
-    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes);
+    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes, options.progress);
   }
   if (fit.usable && options.intervals.method == IntervalMethod::kBootstrap) {
     // Resampled residuals cannot redraw an encoder's phase (one per log), nor the logged voltage's noise that
     // drives the models: both terms are added to the replicates' covariance (core/quantisation.h, input_noise.h).
     bootstrap = ApplyBootstrapIntervals(problem, options.intervals, input_covariance + fit.counted_covariance, &fit,
-                                        &e.intervals.notes);
+                                        &e.intervals.notes, options.progress);
     e.intervals.seed = options.intervals.seed;
     if (bootstrap) {
       e.intervals.replicates = static_cast<int>(bootstrap->replicates.size());

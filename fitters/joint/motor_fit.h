@@ -23,6 +23,7 @@
 #include <vector>
 
 #include "fitters/core/motor_estimate.h"
+#include "fitters/core/progress.h"
 #include "fitters/core/robust_loss.h"
 #include "fitters/joint/interval_methods.h"
 #include "fitters/locked_rotor/locked_rotor_fit.h"
@@ -58,6 +59,7 @@ struct MotorFitOptions {
   IntervalOptions intervals;                                       // wald | profile | bootstrap
   core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
   std::vector<NoiseOverride> noise;                                // --noise channel=sigma
+  core::Progress progress;  // planning, solving, covariance, profile or bootstrap (progress.h); empty: silent
 
   bool IsValid(std::string* error) const;
 };

@@ -3,15 +3,17 @@
 #include <algorithm>
 #include <cstdio>
 #include <cstdlib>
+#include <iostream>
 #include <ostream>
 #include <stdexcept>
 
-#include "fitters/core/bootstrap_progress.h"
 #include "fitters/joint/motor_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/memory_check.h"
 #include "src/cli/number_checks.h"
 #include "src/cli/output_path.h"
+#include "src/cli/progress_printer.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
 #include "src/ingest/read_bench_log.h"
@@ -138,7 +140,6 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   if (a.seed) options.intervals.seed = *a.seed;
   if ((a.replicates || a.seed) && options.intervals.method != joint::IntervalMethod::kBootstrap)
     throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--replicates and --seed apply to --intervals bootstrap only");
-  if (!a.quiet) options.intervals.progress = core::StderrBootstrapProgress();
   if (!a.robust.empty()) options.loss = *core::RobustLossFromString(a.robust);
   std::vector<std::pair<std::string, std::string>> estimate_settings_noise;
   for (const auto& [quantity, text] : ParseQuantityMap(a.noise_specs, "--noise")) {
@@ -154,8 +155,19 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
 
+  std::vector<PlannedLog> sizes;
+  for (const auto& p : planned) sizes.push_back({p.path, p.kind});
+  RequireMemoryForLogs(sizes, AvailableMemoryBytes());  // before a log is read (memory_check.h)
+
+  std::optional<ProgressPrinter> progress;  // stderr, silent with --quiet
+  if (!a.quiet) {
+    progress.emplace(std::cerr, ProgressPrinter::StderrIsTerminal());
+    options.progress = progress->Callback();
+  }
   std::vector<joint::TestLog> logs;
+  const int num_logs = static_cast<int>(planned.size());
   for (const auto& p : planned) {
+    if (progress) progress->Report("reading " + p.shown_path, static_cast<int>(logs.size()), num_logs);
     BenchLog log = ReadBenchLog(p.path, p.read);
     RequireForTest(log, p.kind);
     log.path = p.shown_path;
@@ -163,6 +175,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   }
 
   MotorEstimate estimate = joint::FitMotor(logs, options);
+  if (progress) progress->Finish();
   estimate.settings.insert(estimate.settings.end(), estimate_settings_noise.begin(), estimate_settings_noise.end());
   estimate.settings.push_back({"confidence", Text(options.confidence)});
   estimate.settings.push_back({"intervals", a.intervals});
