@@ -184,6 +184,7 @@ FitResult LeastSquaresProblem::Solve(const SolveOptions& options) {
   std::string error;
   std::string refusal;
   if (!options.IsValid(&error)) refusal = "invalid options: " + error;
+  if (refusal.empty() && !unusable_.empty()) refusal = "cannot solve: " + unusable_;
   if (refusal.empty()) refusal = StartOutsideBounds();
   if (!refusal.empty()) {
     FitResult result = Report(options, estimated, SolveRun(), FitAnalysis());

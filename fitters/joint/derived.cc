@@ -88,6 +88,8 @@ std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& 
   const double t = core::StudentTQuantile(0.5 * (1.0 + e.confidence), p.dof);
   q.ci_low = q.value - t * q.std_error;
   q.ci_high = q.value + t * q.std_error;
+  // A value or interval the numbers cannot give (an overflow, no degrees of freedom) is no result.
+  if (!(std::isfinite(q.value) && std::isfinite(q.ci_low) && std::isfinite(q.ci_high))) return std::nullopt;
   q.tests = tests;
   if (formula.at_voltage) q.at_voltage_V = voltage_V;
   if (formula.at_voltage && !e.Find("brush_drop")) q.note = "brush drop not determined: taken as 0 V";
@@ -116,6 +118,7 @@ std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula
   q->ci_low = b.value - k * (b.value - b.ci_low);
   q->ci_high = b.value + k * (b.ci_high - b.value);
   q->degrees_of_freedom = b.degrees_of_freedom;  // NaN: not a t interval
+  if (!(std::isfinite(q->ci_low) && std::isfinite(q->ci_high))) return std::nullopt;
   return q;
 }
 
@@ -136,6 +139,7 @@ std::optional<TorqueSpeedLine> TorqueSpeed(const MotorEstimate& e, double voltag
         e.covariance);
     const double t = core::StudentTQuantile(0.5 * (1.0 + e.confidence), p.dof);
     line.points.push_back({speed, p.value, p.value - t * p.std_error, p.value + t * p.std_error});
+    if (!(std::isfinite(p.value) && std::isfinite(t * p.std_error))) return std::nullopt;  // as for a derived value
   }
   return line;
 }
