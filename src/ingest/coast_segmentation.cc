@@ -219,6 +219,7 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   std::vector<double> top;
   for (double value : u)
     if (value >= peak - allowance) top.push_back(value);
+  if (top.empty() || !std::isfinite(allowance)) return std::nullopt;  // speeds beyond the range of a double
   const double coarse_level = Median(std::move(top));
   std::size_t coarse = n;
   while (coarse > 0 && u[coarse - 1] < coarse_level - allowance) --coarse;
