@@ -200,11 +200,17 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
     if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
   }
+  // A key is determined when the result holds it (a fit without a usable covariance
+  // lists only the model parameters as not identified, so absence is what counts).
+  const auto determined = [&estimate](const std::string& key) {
+    const auto named = [&key](const QuantityEstimate& q) { return q.key == key; };
+    return estimate.Find(key) != nullptr || std::any_of(estimate.ratios.begin(), estimate.ratios.end(), named) ||
+           std::any_of(estimate.derived.begin(), estimate.derived.end(), named);
+  };
   std::vector<std::string> undetermined;
   for (const auto& key : required)
-    for (const auto& [missing, reason] : estimate.not_identified)
-      if (missing == key && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
-        undetermined.push_back(key);
+    if (!determined(key) && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
+      undetermined.push_back(key);
 
   const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
   if (json_on_stdout) {
