@@ -28,6 +28,10 @@ class CheckedFileSource : public io::ByteSourceBase {
 
   // io::LineReader takes a short read for the end of the file, so the buffer is
   // filled unless the file ends, however many line feeds of CR LF pairs were dropped.
+  // At the end the byte after the data is made NUL: when the last line has no line
+  // end, the line reader looks one byte past the data, and a stale '\n' there (its
+  // buffer is not cleared) made it take the rest of the buffer for a line and read
+  // past its end (found by fuzzing, docs/fuzzing.md).
   int read(char* buffer, int size) override {
     const std::size_t wanted = static_cast<std::size_t>(size);
     std::size_t produced = 0;
@@ -37,6 +41,7 @@ class CheckedFileSource : public io::ByteSourceBase {
       produced += NormaliseLineEnds(buffer + produced, got);
       if (got < asked) break;  // the end of the file
     }
+    if (produced < wanted) buffer[produced] = '\0';
     return static_cast<int>(produced);
   }
 
