@@ -21,7 +21,6 @@
 namespace coilspin::joint {
 namespace {
 
-constexpr int kGroupSigmaRounds = 3;
 constexpr int kTorqueSpeedPoints = 11;
 const char* const kTiedBasis = "equal-to-Ke";
 
@@ -187,6 +186,10 @@ bool MotorFitOptions::IsValid(std::string* error) const {
     *error = "--at-voltage must be positive";
     return false;
   }
+  if (max_solver_iterations < 1 || group_sigma_rounds < 0) {
+    *error = "the solver needs at least 1 iteration and 0 or more noise re-estimation rounds";
+    return false;
+  }
   for (const auto& o : noise) {
     if (o.channel != "current" && o.channel != "voltage" && o.channel != "speed" && o.channel != "position") {
       *error = "--noise: channel must be current, voltage, speed or position, got '" + o.channel + "'";
@@ -299,7 +302,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   core::SolveOptions solve;
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;
-  solve.group_sigma_rounds = kGroupSigmaRounds;
+  solve.group_sigma_rounds = options.group_sigma_rounds;
+  solve.max_iterations = options.max_solver_iterations;
   solve.loss = options.loss;
   core::FitResult fit = problem.Solve(solve);
   const Eigen::MatrixXd output_covariance = fit.covariance;

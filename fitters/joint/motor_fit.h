@@ -60,6 +60,12 @@ struct MotorFitOptions {
   core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
   std::vector<NoiseOverride> noise;                                // --noise channel=sigma
   core::Progress progress;  // planning, solving, covariance, profile or bootstrap (progress.h); empty: silent
+  // Bounds on the work, for a caller that must stay fast (the fuzz harness,
+  // tests/fuzz/fuzz_fit.cc): Levenberg–Marquardt iterations per solve (the core's
+  // default) and the rounds that re-estimate each group's noise (3 by default:
+  // the noise levels then agree with the residuals to well within their spread).
+  int max_solver_iterations = core::SolveOptions().max_iterations;
+  int group_sigma_rounds = 3;
 
   bool IsValid(std::string* error) const;
 };
