@@ -1,6 +1,7 @@
 #include "fitters/core/added_covariance.h"
 
 #include <cmath>
+#include <limits>
 
 namespace coilspin::core {
 
@@ -19,8 +20,14 @@ void AddCovariance(const Eigen::MatrixXd& extra, FitResult* fit) {
   const Eigen::Index p = fit->covariance.rows();
   for (Eigen::Index j = 0; j < p; ++j) {
     ParameterEstimate& e = fit->parameters[static_cast<std::size_t>(j)];
-    if (e.fixed || !(e.std_error > 0.0)) continue;
-    const double quantile = (e.ci_high - e.value) / e.std_error;  // t at the same degrees of freedom
+    if (e.fixed || !std::isfinite(e.std_error)) continue;
+    // t at the same degrees of freedom: from the interval, or (an output-noise term of 0,
+    // all of the residual explained by the counted noise) from ν itself, normal when none.
+    const double quantile = e.std_error > 0.0 ? (e.ci_high - e.value) / e.std_error
+                                              : StudentTQuantile(0.5 * (1.0 + fit->confidence),
+                                                                 std::isfinite(e.degrees_of_freedom) && e.degrees_of_freedom > 0.0
+                                                                     ? e.degrees_of_freedom
+                                                                     : std::numeric_limits<double>::infinity());
     e.std_error = std::sqrt(fit->covariance(j, j));
     e.ci_low = e.value - quantile * e.std_error;
     e.ci_high = e.value + quantile * e.std_error;

@@ -13,11 +13,6 @@
 namespace coilspin::core {
 namespace {
 
-// The lags of input noise asked for a quantised group, whose widening sums ρ_m
-// over Sokal's window (autocorrelation_widening.h): enough for τ_int up to 10
-// samples at kSokalWindow = 10; beyond it a_m counts as 0, which can only widen more.
-constexpr int kMaxExplainedLag = 100;
-
 Eigen::MatrixXd DenseFromCrs(const ceres::CRSMatrix& crs) {
   Eigen::MatrixXd dense = Eigen::MatrixXd::Zero(crs.num_rows, crs.num_cols);
   for (int row = 0; row < crs.num_rows; ++row) {
@@ -127,23 +122,15 @@ FitAnalysis LeastSquaresProblem::Analyse(const SolveOptions& options, const std:
     term.sigma_known = groups_[g]->spec.sigma_known;
     const GroupSpec& spec = groups_[g]->spec;
     CountedNoise counted;  // what other terms count: left out of s_g² and the widening (counted_noise.h)
+    const bool widen = options.widen_for_autocorrelation && term.num_residuals >= kMinResidualsForWidening;
     if (options.separate_input_noise) {
-      counted = CountedNoiseOf(spec, groups_[g]->sigma, values, term.jacobian, 1);
+      // Every lag the widening may sum (autocorrelation_widening.h), or lag 0 alone when it is off.
+      counted = CountedNoiseOf(spec, groups_[g]->sigma, values, term.jacobian, widen ? term.num_residuals - 1 : 0);
       if (!counted.explained.empty()) term.explained_sum_squares = counted.explained.front();
       term.counted_moment = counted.moment;
     }
     if (options.widen_for_autocorrelation) {
-      const Eigen::VectorXd& z = analysis.groups[g].weighted_residuals;
-      // Decided on lag 1; only a widened quantised group sums further lags (τ_int), so
-      // only then are the counted terms' lagged sums needed beyond lag 1.
-      AutocorrelationWidening widening = DecideWidening(z, counted.explained, false);
-      if (widening.widened && spec.quantised) {
-        const LaggedSums longer =
-            options.separate_input_noise
-                ? CountedNoiseOf(spec, groups_[g]->sigma, values, term.jacobian, kMaxExplainedLag).explained
-                : LaggedSums();
-        widening = DecideWidening(z, longer, true);
-      }
+      const AutocorrelationWidening widening = DecideWidening(analysis.groups[g].weighted_residuals, counted.explained);
       term.variance_inflation = widening.inflation;
       analysis.widening.push_back(widening);
     }

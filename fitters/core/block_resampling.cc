@@ -7,13 +7,11 @@
 
 namespace coilspin::core {
 
-int BlockLength(int num_residuals, double lag1_autocorrelation) {
+int BlockLength(int num_residuals, double integrated_autocorrelation_time) {
   if (num_residuals < kMinResidualsForBlocks) return 1;
   const double n = static_cast<double>(num_residuals);
-  const double rho = std::clamp(std::isfinite(lag1_autocorrelation) ? lag1_autocorrelation : 0.0, 0.0,
-                                kMaxBlockAutocorrelation);
-  const double dependence = std::cbrt(6.0 * rho * rho / ((1.0 - rho * rho) * (1.0 - rho * rho)));
-  const int length = static_cast<int>(std::ceil(std::cbrt(n) * std::max(1.0, dependence)));
+  const double tau = std::isfinite(integrated_autocorrelation_time) ? integrated_autocorrelation_time : 1.0;
+  const int length = static_cast<int>(std::ceil(std::max(std::cbrt(n), kBlockLengthPerTau * tau)));
   return std::clamp(length, 1, std::max(1, num_residuals / kMinBlocksPerGroup));
 }
 
@@ -52,6 +50,13 @@ Eigen::VectorXd ResampleBlocks(const Eigen::VectorXd& residuals, int block_lengt
     out.segment(filled, count) = residuals.segment(start, count);
     filled += count;
   }
+  return out;
+}
+
+Eigen::VectorXd WildResample(const Eigen::VectorXd& residuals, std::mt19937_64& generator) {
+  Eigen::VectorXd out(residuals.size());
+  for (Eigen::Index k = 0; k < residuals.size(); ++k)
+    out(k) = (generator() >> 63) != 0 ? residuals(k) : -residuals(k);  // v_k = ±1, the top bit
   return out;
 }
 

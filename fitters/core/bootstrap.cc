@@ -14,6 +14,7 @@
 #include <optional>
 #include <thread>
 
+#include "fitters/core/autocorrelation_widening.h"
 #include "fitters/core/block_resampling.h"
 #include "fitters/core/require.h"
 #include "fitters/core/residual_statistics.h"
@@ -24,6 +25,10 @@ namespace {
 // How often the calling thread reports progress while replicates run: often
 // enough to look live, rarely enough to cost nothing (common practice).
 constexpr std::chrono::milliseconds kProgressInterval(250);
+
+// 1 − h_k is floored here: a residual the fit determines alone (h_k → 1) has r̂_k ≈ 0,
+// and its rescaling must not blow that rounding up (common practice).
+constexpr double kMinimumResidualShare = 1e-3;
 
 bool Fail(std::string* error, const std::string& why) {
   if (error != nullptr) *error = why;
@@ -43,7 +48,8 @@ double StandardDeviation(const std::vector<double>& samples) {
 struct Plan {
   std::vector<double> values;               // θ̂
   std::vector<Eigen::VectorXd> residuals;   // r̂_g
-  std::vector<int> block_lengths;           // ℓ_g
+  std::vector<Eigen::VectorXd> rescaled;    // r̃_g = r̂_g/√(1 − h), centred for blocks: what is drawn from
+  std::vector<int> block_lengths;           // ℓ_g; 0 for a wild group
   SolveOptions options;                     // the full fit's, with σ_g held
   // The full fit's input-noise bias correction θ_c − θ̂ (input_noise_bias.cc): a
   // replicate solves plain least squares and is shifted by it, the correction
@@ -59,7 +65,9 @@ std::optional<std::vector<double>> RunReplicate(LeastSquaresProblem& clone, cons
   for (std::size_t g = 0; g < plan.residuals.size(); ++g) {
     const Eigen::VectorXd& fitted = plan.residuals[g];
     if (fitted.size() == 0) continue;
-    const Eigen::VectorXd drawn = ResampleBlocks(fitted, plan.block_lengths[g], generator);
+    const Eigen::VectorXd drawn = plan.block_lengths[g] == 0
+                                      ? WildResample(plan.rescaled[g], generator)
+                                      : ResampleBlocks(plan.rescaled[g], plan.block_lengths[g], generator);
     const Eigen::VectorXd offsets = drawn - fitted;  // δ_g = r*_g − r̂_g
     clone.SetResidualOffsets(static_cast<int>(g), std::vector<double>(offsets.data(), offsets.data() + offsets.size()));
   }
@@ -130,6 +138,12 @@ ParameterEstimate BootstrapQuantity(const BootstrapResult& result, const std::st
   return estimate;
 }
 
+double SmallSampleStretch(double degrees_of_freedom, double confidence) {
+  if (!(degrees_of_freedom > 0.0) || !std::isfinite(degrees_of_freedom)) return 1.0;
+  const double q = 0.5 * (1.0 + confidence);
+  return StudentTQuantile(q, degrees_of_freedom) / StudentTQuantile(q, std::numeric_limits<double>::infinity());
+}
+
 BootstrapResult Bootstrap(const LeastSquaresProblem& problem, const FitResult& fit,
                           const BootstrapOptions& options) {
   BootstrapResult result;
@@ -158,8 +172,21 @@ BootstrapResult Bootstrap(const LeastSquaresProblem& problem, const FitResult& f
     return result;
   }
   plan.residuals = *residuals;
-  for (const Eigen::VectorXd& group : plan.residuals) {
-    plan.block_lengths.push_back(BlockLength(static_cast<int>(group.size()), Lag1Autocorrelation(group)));
+  for (std::size_t g = 0; g < plan.residuals.size(); ++g) {
+    const Eigen::VectorXd& r = plan.residuals[g];
+    const GroupStatistics& statistics = fit.groups[g];
+    // r̃_k = r̂_k/√(1 − h_k) (block_resampling.h, "Small groups")
+    Eigen::VectorXd rescaled = r;
+    if (statistics.leverage.size() == r.size())
+      for (Eigen::Index k = 0; k < r.size(); ++k)
+        rescaled(k) = r(k) / std::sqrt(std::max(1.0 - statistics.leverage(k), kMinimumResidualShare));
+    const bool wild = r.size() < kMinResidualsForBlocks;
+    if (!wild && rescaled.size() > 0) rescaled.array() -= rescaled.mean();
+    plan.rescaled.push_back(rescaled);
+    // τ of the group's own part as the fit estimated it; estimated here when the fit did not widen.
+    const double tau = fit.options.widen_for_autocorrelation ? statistics.integrated_autocorrelation_time
+                                                             : DecideWidening(rescaled, {}).integrated_time;
+    plan.block_lengths.push_back(wild ? 0 : BlockLength(static_cast<int>(r.size()), tau));
   }
   result.block_lengths = plan.block_lengths;
   plan.options = fit.options;

@@ -95,6 +95,15 @@ PercentileBounds Percentiles(std::vector<double> samples, double confidence);
 // A derived quantity g(θ): value g(θ̂) at the full fit, std_error and percentile
 // interval from g(θ*_b) over the replicates. `full_fit_values` are the fit's
 // parameter values in the order added.
+// The stretch of a percentile interval whose quantity the Wald fit gives ν
+// degrees of freedom: k = t_{(1+c)/2, ν}/z_{(1+c)/2}, 1 when ν is infinite or NaN.
+// The percentile interval of a few plateau means has the normal's width around
+// the replicates' spread; the estimate's own reference distribution, with the
+// noise level estimated from a handful of residuals, is Student's t (the
+// "expanded percentile interval", Hesterberg, Amer. Statist. 69, 2015 — from
+// memory). Measured on the bootstrap benches of docs/coverage.md.
+double SmallSampleStretch(double degrees_of_freedom, double confidence);
+
 ParameterEstimate BootstrapQuantity(const BootstrapResult& result, const std::string& name,
                                     const std::vector<double>& full_fit_values,
                                     const std::function<double(const std::vector<double>&)>& quantity,

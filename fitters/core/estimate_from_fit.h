@@ -1,6 +1,7 @@
 #pragma once
 // Turns the core's FitResult into the Ceres-free pieces of a MotorEstimate.
 
+#include <cmath>
 #include <string>
 #include <vector>
 
@@ -30,19 +31,26 @@ inline SolverSummary ToSolverSummary(const FitResult& fit) {
 }
 
 // Covariance and correlation of the named parameters, in the given order.
+// The sandwich covariance is symmetric only to rounding (terms up to 2e-7 apart
+// relative); the estimate holds its symmetric part, (C + Cᵀ)/2, and the
+// correlation of that, so both are exactly symmetric.
 inline void CopyCovariance(const FitResult& fit, const std::vector<std::string>& names, MotorEstimate* estimate) {
   estimate->correlation_names = names;
   const std::size_t n = names.size();
   estimate->covariance.assign(n, std::vector<double>(n, 0.0));
   estimate->correlation.assign(n, std::vector<double>(n, 0.0));
-  for (std::size_t a = 0; a < n; ++a) {
+  for (std::size_t a = 0; a < n; ++a)
     for (std::size_t b = 0; b < n; ++b) {
       const int ia = fit.IndexOf(names[a]);
       const int ib = fit.IndexOf(names[b]);
-      estimate->covariance[a][b] = fit.covariance(ia, ib);
-      estimate->correlation[a][b] = fit.correlation(ia, ib);
+      estimate->covariance[a][b] = 0.5 * (fit.covariance(ia, ib) + fit.covariance(ib, ia));
     }
-  }
+  const auto& c = estimate->covariance;
+  for (std::size_t a = 0; a < n; ++a)
+    for (std::size_t b = 0; b < n; ++b) {
+      const double scale = std::sqrt(c[a][a] * c[b][b]);  // ρ_ab = C_ab/√(C_aa·C_bb)
+      estimate->correlation[a][b] = !(scale > 0.0) ? 0.0 : a == b ? 1.0 : c[a][b] / scale;
+    }
 }
 
 }  // namespace coilspin::core

@@ -28,10 +28,12 @@ CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,
       out.effective_degrees_of_freedom.push_back(0.0);
       out.residual_variance.push_back(0.0);
       out.measured_residual_variance.push_back(0.0);
+      out.leverage.emplace_back();
       continue;
     }
     const Eigen::MatrixXd projected = group.jacobian * c;  // B_g = J_g·C
-    const double fitted = projected.cwiseProduct(group.jacobian).sum();
+    out.leverage.push_back(projected.cwiseProduct(group.jacobian).rowwise().sum());
+    const double fitted = out.leverage.back().sum();
     const double residual_dof = group.num_residuals - fitted;
     const double measured =
         residual_dof > kNoResidualDegreesOfFreedom ? group.weighted_rss / residual_dof : not_a_number;

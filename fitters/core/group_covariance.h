@@ -78,6 +78,10 @@ struct CovarianceBreakdown {
   Eigen::MatrixXd covariance;            // Cov x, p × p
   Eigen::MatrixXd counted_covariance;    // the counted terms' part of Cov x, p × p
   Eigen::VectorXd degrees_of_freedom;    // ν_j, +infinity when σ_g are known
+  // Per group, the leverage of each residual, h_k = [J·C·Jᵀ]_kk over the whole problem
+  // (the rows of B_g∘J_g summed; Σ_k h_k = h_g): a residual's share of the fitted
+  // degrees of freedom, which the bootstrap's residual rescaling needs (bootstrap.h).
+  std::vector<Eigen::VectorXd> leverage;
 };
 
 CovarianceBreakdown CombineGroups(const Eigen::MatrixXd& inverse_information,

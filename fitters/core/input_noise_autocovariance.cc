@@ -5,27 +5,20 @@
 
 namespace coilspin::core {
 
-void AddLaggedSums(const Eigen::VectorXd& u, int max_lag, LaggedSums* sums) {
-  const Eigen::Index n = u.size();
-  const Eigen::Index lags = std::min<Eigen::Index>(max_lag + 1, n);
-  if (sums->empty()) sums->assign(static_cast<std::size_t>(std::max<Eigen::Index>(lags, 0)), 0.0);
-  for (Eigen::Index m = 0; m < lags; ++m) (*sums)[static_cast<std::size_t>(m)] += u.head(n - m).dot(u.tail(n - m));  // Σ_k u_k·u_{k+m}
-}
-
 LaggedSums ProbeInputNoise(const ResidualsForInput& residuals, const std::vector<double>& input,
-                           double sigma_input, int max_lag) {
-  if (!(sigma_input > 0.0) || max_lag < 0) return {};
+                           const NoiseLevel& noise, int max_lag) {
+  if (!(noise.sigma > 0.0) || max_lag < 0) return {};
   std::vector<double> at_input;
   if (!residuals(input, &at_input)) return {};
   const std::size_t n = at_input.size();
   std::mt19937_64 generator(kInputNoiseAutocovarianceSeed);
-  std::normal_distribution<double> normal(0.0, 1.0);
-  std::vector<double> moved(input.size());
+  std::vector<double> drawn(input.size()), moved(input.size());
   std::vector<double> at_moved;
   Eigen::VectorXd change(static_cast<Eigen::Index>(n));
   LaggedSums sums;
   for (int probe = 0; probe < kInputNoiseAutocovarianceProbes; ++probe) {
-    for (std::size_t k = 0; k < input.size(); ++k) moved[k] = input[k] + sigma_input * normal(generator);
+    DrawAr1(generator, noise, &drawn);
+    for (std::size_t k = 0; k < input.size(); ++k) moved[k] = input[k] + drawn[k];
     if (!residuals(moved, &at_moved) || at_moved.size() != n) return {};
     for (std::size_t k = 0; k < n; ++k) change(static_cast<Eigen::Index>(k)) = at_moved[k] - at_input[k];  // u = r(v + δv) − r(v)
     AddLaggedSums(change, max_lag, &sums);

@@ -15,9 +15,9 @@
 //
 // What is computed. The expected lagged sums of u over the group,
 //     a_m = E[ Σ_k u_k·u_{k+m} ],   m = 0 … M
-// (a_0 the expected sum of squares), by random probes: δv = σ_v·z with z
-// standard normal, independent per sample (white input noise, as the sandwich
-// terms assume), one evaluation of the residuals per probe, averaged over a
+// (a_0 the expected sum of squares), by random probes: δv drawn as AR(1) noise
+// of the channel's marginal σ_v and lag-1 correlation φ_v (ar1_noise.h; white
+// when φ_v = 0), one evaluation of the residuals per probe, averaged over a
 // fixed-seed set of probes. Each probe already averages over the n samples, so
 // a few probes suffice: the relative Monte Carlo error of a_m is about
 // √(2·τ/(n·K)) for u of correlation time τ samples.
@@ -37,6 +37,9 @@
 #include <functional>
 #include <vector>
 
+#include "fitters/core/ar1_noise.h"
+#include "fitters/core/lagged_sums.h"
+
 namespace coilspin::core {
 
 // Probes per evaluation (K): the estimate of a_m is an average over n samples
@@ -46,10 +49,6 @@ inline constexpr int kInputNoiseAutocovarianceProbes = 16;
 
 // The probes' generator seed: fixed, so the same fit repeats exactly (style.md habit 13).
 inline constexpr std::uint64_t kInputNoiseAutocovarianceSeed = 20261203;
-
-// a_0 … a_M, in the squared unit of the group's (unweighted) residuals; empty
-// when there is nothing to explain.
-using LaggedSums = std::vector<double>;
 
 // The model of a group's input noise, given to GroupSpec::input_noise: the
 // problem's current parameter values (physical, every parameter in the order
@@ -61,23 +60,18 @@ using InputNoiseModel = std::function<LaggedSums(const std::vector<double>& valu
 using ResidualsForInput =
     std::function<bool(const std::vector<double>& input, std::vector<double>* residuals)>;
 
-// Adds Σ_k u_k·u_{k+m}, m = 0 … max_lag (fewer when u is shorter), of one
-// realisation u to *sums, sizing it on the first call: realisations are summed as
-// they are made, never stored (K of them would hold K·n values).
-void AddLaggedSums(const Eigen::VectorXd& u, int max_lag, LaggedSums* sums);
-
-// a_0 … a_max_lag by random probes of white noise of σ = sigma_input on `input`.
-// Empty when sigma_input is not positive or an evaluation fails.
+// a_0 … a_max_lag by random probes of AR(1) noise of the given level on `input`
+// (ar1_noise.h; φ = 0 is white). Empty when its σ is not positive or an evaluation fails.
 LaggedSums ProbeInputNoise(const ResidualsForInput& residuals, const std::vector<double>& input,
-                           double sigma_input, int max_lag);
+                           const NoiseLevel& noise, int max_lag);
 
 // The InputNoiseModel of a residual functor (the form AddResiduals takes) whose
 // logged input is the member `input`: the functor is evaluated at the listed
 // parameters with that member pointed at probed copies of the input.
 template <class Residual>
 InputNoiseModel ProbedInputNoise(Residual residual, const std::vector<double>* Residual::*input,
-                                 std::vector<int> parameters, int num_residuals, double sigma_input) {
-  return [residual, input, parameters, num_residuals, sigma_input](const std::vector<double>& values,
+                                 std::vector<int> parameters, int num_residuals, NoiseLevel noise) {
+  return [residual, input, parameters, num_residuals, noise](const std::vector<double>& values,
                                                                    int max_lag) -> LaggedSums {
     std::vector<const double*> at;
     for (int index : parameters) at.push_back(&values[static_cast<std::size_t>(index)]);
@@ -87,7 +81,7 @@ InputNoiseModel ProbedInputNoise(Residual residual, const std::vector<double>* R
       residuals->assign(static_cast<std::size_t>(num_residuals), 0.0);
       return moved(at.data(), residuals->data());
     };
-    return ProbeInputNoise(evaluate, *(residual.*input), sigma_input, max_lag);
+    return ProbeInputNoise(evaluate, *(residual.*input), noise, max_lag);
   };
 }
 

@@ -87,12 +87,6 @@ struct GroupSpec {
   // not re-estimated by estimate_group_sigmas, and the covariance counts it as known
   // (s_g² = 1, no degrees of freedom lost to it) while the other groups' come from data.
   bool sigma_known = false;
-  // The residuals are those of a quantised reading (encoder counts): their error is
-  // a slow sawtooth when the reading moves by a near-constant step per sample, so a
-  // widened group uses the integrated autocorrelation time, not only lag 1
-  // (autocorrelation_widening.h). Off elsewhere: where a group's slow error is
-  // the logged input's noise, the input-noise terms count it already.
-  bool quantised = false;
   // Noise on a logged input that drives this group's model, counted by a covariance
   // term of the caller's (input_noise_autocovariance.h): when set, the covariance
   // step leaves its expected share out of s_g² and out of the autocorrelation
@@ -179,6 +173,12 @@ struct GroupStatistics {
   bool widened_for_autocorrelation = false;
   double variance_inflation = 1.0;
   double effective_num_residuals = 0.0;
+  // τ̂ of the group's own residuals (Geyer's estimate, whether or not it widened
+  // the group; 1 for groups too short to estimate it), and the lags it summed.
+  double integrated_autocorrelation_time = 1.0;
+  int autocorrelation_lags = 0;
+  // The leverage h_k of each residual (group_covariance.h); empty without a covariance.
+  Eigen::VectorXd leverage;
 };
 
 struct FitResult {

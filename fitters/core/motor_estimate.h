@@ -25,6 +25,9 @@ struct QuantityEstimate {
   std::optional<double> at_voltage_V;
   std::optional<double> at_temperature_degC;
   std::string note;
+  // Assumptions this value rests on that its tests cannot check, each in words with
+  // the size of its effect where it can be bounded ("brush_drop = 0 V: ...").
+  std::vector<std::string> assumes;
 };
 
 struct ChannelResidual {
@@ -46,6 +49,12 @@ struct TestSummary {
   // Per estimated parameter: this test's share of its information (variance
   // contribution, core::GroupStatistics::information_share), summing to 1 over tests.
   std::vector<std::pair<std::string, double>> information_share;
+  // Readings set aside as isolated outliers (src/ingest/outliers.h), per channel:
+  // the channel's name and the file lines of the readings.
+  std::vector<std::pair<std::string, std::vector<long>>> set_aside;
+  // Whether the log added anything to the fit (false: no coast found, a step refused,
+  // no settled plateau): a test given that contributes nothing is a failure to report.
+  bool contributed = false;
 };
 
 struct SolverSummary {
@@ -97,6 +106,9 @@ struct MotorEstimate {
   std::vector<std::pair<std::string, std::string>> not_identified;  // key, reason
   std::vector<QuantityEstimate> ratios;
   std::vector<QuantityEstimate> derived;
+  // Sensor zero readings estimated from the logs (src/model/sensor_offsets.h), keyed by
+  // channel ("current"); same entry shape as parameters.
+  std::vector<QuantityEstimate> sensor_offsets;
   std::vector<std::string> correlation_names;         // parameters of the covariance, in order
   std::vector<std::vector<double>> correlation;
   std::vector<std::vector<double>> covariance;          // SI, same order (for derived quantities)

@@ -106,6 +106,8 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
       statistics.widened_for_autocorrelation = analysis.widening[g].widened;
       statistics.variance_inflation = analysis.widening[g].inflation;
       statistics.effective_num_residuals = analysis.widening[g].effective_num_residuals;
+      statistics.integrated_autocorrelation_time = analysis.widening[g].integrated_time;
+      statistics.autocorrelation_lags = analysis.widening[g].lags;
     }
     if (analysis.evaluated) {
       const Eigen::VectorXd unweighted = analysis.groups[g].weighted_residuals * group.sigma;
@@ -117,6 +119,7 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
       statistics.residual_variance = breakdown.measured_residual_variance[g];
       statistics.own_residual_variance = breakdown.residual_variance[g];
       statistics.degrees_of_freedom = breakdown.residual_degrees_of_freedom[g];
+      if (g < breakdown.leverage.size()) statistics.leverage = breakdown.leverage[g];
       statistics.fitted_degrees_of_freedom = breakdown.fitted_degrees_of_freedom[g];
       for (Eigen::Index k = 0; k < p; ++k) {
         const double total = breakdown.variance_parts.col(k).sum();

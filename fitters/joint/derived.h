@@ -1,10 +1,8 @@
 #pragma once
-// Intervals for derived quantities by the delta method on the fit's covariance,
-//     se(g) = √(∇gᵀ·Cov·∇g),
-// with ∇g by central differences (step 10⁻⁶ of each parameter's magnitude), and
-// the Student-t quantile at the smallest degrees of freedom among the
-// parameters g uses (the conservative choice). When Kt was taken equal to Ke,
-// both move together in the differences.
+// Intervals for derived quantities: by the delta method on the fit's covariance
+// (src/result/derived_intervals.h, shared with datasheet verification, which
+// starts from a result file), or from bootstrap replicates; and the
+// torque–speed line with its pointwise band.
 
 #include <optional>
 #include <vector>
@@ -12,15 +10,12 @@
 #include "fitters/core/bootstrap.h"
 #include "fitters/core/motor_estimate.h"
 #include "src/model/derived_quantities.h"
+#include "src/result/derived_intervals.h"
 
 namespace coilspin::joint {
 
-// The estimate's parameter values by key (Kt included when assumed equal to Ke).
-model::ParameterValues ValuesOf(const MotorEstimate& estimate);
-
-// Empty when a parameter the formula uses is not in the estimate's covariance.
-std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& formula,
-                                                   const MotorEstimate& estimate, double voltage_V);
+using result::DeriveWithInterval;  // the delta method (src/result/derived_intervals.h)
+using result::ValuesOf;
 
 // Bootstrap replicates of the joint problem, and where each parameter of the
 // estimate's covariance (correlation_names, in order) sits in a replicate.

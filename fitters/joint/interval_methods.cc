@@ -93,7 +93,9 @@ std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSq
     if (fit->parameters[j].fixed) continue;
     const core::ParameterEstimate& q = result.parameters[j];
     const auto at = static_cast<Eigen::Index>(j);
-    const double k = InputStretch(added_covariance(at, at), q.std_error * q.std_error);
+    // The added terms' stretch, and the expanded percentile interval for the Wald fit's ν_j (bootstrap.h).
+    const double k = InputStretch(added_covariance(at, at), q.std_error * q.std_error) *
+                     core::SmallSampleStretch(fit->parameters[j].degrees_of_freedom, fit->confidence);
     fit->parameters[j].std_error = std::sqrt(covariance(at, at));
     fit->parameters[j].ci_low = q.value - k * (q.value - q.ci_low);
     fit->parameters[j].ci_high = q.value + k * (q.ci_high - q.value);

@@ -8,7 +8,9 @@
 #include "fitters/core/estimate_from_fit.h"
 #include "fitters/core/shared_parameters.h"
 #include "fitters/joint/consistency.h"
+#include "fitters/joint/assumptions.h"
 #include "fitters/joint/derived.h"
+#include "fitters/joint/sensor_offsets.h"
 #include "fitters/locked_rotor/input_noise.h"
 #include "fitters/no_load/no_load_fit.h"
 #include "fitters/spin_down/spin_down_fit.h"
@@ -116,6 +118,7 @@ std::vector<ResidualGroup> ResidualGroups(const locked_rotor::LockedRotorPlan& l
     const bool speed = c.position_rad.empty();
     groups.push_back({c.summary, c.motion_group, speed ? "speed" : "position", speed ? "rad/s" : "rad", true});
     groups.push_back({c.summary, c.voltage_group, "voltage", "V", true});
+    groups.push_back({c.summary, c.zero_current_group, "current", "A", true});
   }
   for (const auto& s : st.logs) {
     groups.push_back({s.summary, s.current_group, "current", "A", true});
@@ -133,8 +136,8 @@ void AddInformationShares(const std::vector<ResidualGroup>& groups, const core::
     std::vector<double> share(e->tests.size(), 0.0);
     for (const auto& g : groups)
       if (g.group >= 0) share[g.summary] += fit.groups[g.group].information_share[index];
-    for (std::size_t t = 0; t < e->tests.size(); ++t)
-      if (share[t] > 0.0) e->tests[t].information_share.push_back({key, share[t]});
+    for (std::size_t t = 0; t < e->tests.size(); ++t)  // shares sum to 1 up to rounding
+      if (share[t] > 0.0) e->tests[t].information_share.push_back({key, std::min(share[t], 1.0)});
   }
 }
 
@@ -165,10 +168,10 @@ void WarnStrongCorrelations(MotorEstimate* e) {
   for (std::size_t a = 0; a < names.size(); ++a)
     for (std::size_t b = a + 1; b < names.size(); ++b)
       if (std::fabs(e->correlation[a][b]) > kStrongCorrelation)
-        e->warnings.push_back(names[a] + " and " + names[b] + " are nearly inseparable in these tests (correlation " +
+        e->warnings.push_back(names[a] + " and " + names[b] + " move together in these tests (correlation " +
                               Format("%.4f", e->correlation[a][b]) +
-                              "): their intervals are wide for that reason; a test that moves one without the "
-                              "other would separate them");
+                              "): the logs fix their combination far better than either one, and each interval "
+                              "is wide for that reason; a test that moves one without the other would separate them");
 }
 
 }  // namespace
@@ -201,6 +204,15 @@ bool MotorFitOptions::IsValid(std::string* error) const {
     }
   }
   return locked_rotor.IsValid(error);
+}
+
+std::vector<std::string> RequirableKeys() {
+  std::vector<std::string> keys;
+  for (const auto& info : kPhysical) keys.push_back(info.key);
+  for (const char* ratio : {"viscous_over_inertia", "coulomb_over_inertia", "torque_constant_over_inertia"})
+    keys.push_back(ratio);
+  for (const auto& key : model::DerivedKeys()) keys.push_back(key);
+  return keys;
 }
 
 MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions& options) {
@@ -263,6 +275,13 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                              NoLoadPlateauOptions(lr_options.plateaus), &e);
   core::ReportProgress(options.progress, core::ProgressStage::kPlanning, num_tests, num_tests);
 
+  // Readings each log had set aside at ingest, on its test's summary.
+  for (auto& summary : e.tests)
+    for (const auto& t : tests)
+      if (t.log.path == summary.file && summary.set_aside.empty())
+        for (const auto& s : t.log.set_aside)
+          summary.set_aside.push_back({std::string(units::QuantityName(s.quantity)), s.lines});
+
   // 2. The mechanical basis.
   const bool has_back_emf = nl.back_emf_identified || sd.measures_back_emf || st.usable;
   const bool inertia_known = options.known_inertia_kg_m2.has_value();
@@ -287,6 +306,11 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   core::LeastSquaresProblem problem;
   problem.SetProgress(options.progress);
   core::SharedParameters parameters(&problem);
+  double peak_current_A = 0.0;
+  for (const auto& t : tests)
+    for (double i : t.log.current_A) peak_current_A = std::max(peak_current_A, std::fabs(i));
+  const CurrentZero current_zero = FindCurrentZero(lr, sd, st, peak_current_A);
+  AddCurrentZero(current_zero, &parameters);
   locked_rotor::AddLockedRotor(&lr, &parameters);
   no_load::AddNoLoad(&nl, kt_name, &parameters);
   if (sd.usable && mechanics == spin_down::Mechanics::kAbsolute && !(inertia_start > 0.0)) sd.usable = false;
@@ -298,6 +322,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     return e;
   }
   const std::vector<ResidualGroup> residual_groups = ResidualGroups(lr, nl, sd, st);
+  for (const auto& g : residual_groups)
+    if (g.group >= 0) e.tests[g.summary].contributed = true;
   ApplyNoiseOverrides(options.noise, residual_groups, &problem, &e);
   core::SolveOptions solve;
   solve.confidence = options.confidence;
@@ -401,8 +427,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (!kt_measured && parameters.Has("back_emf_constant") && (friction_from_no_load || has_back_emf)) {
     QuantityEstimate kt = core::ToQuantity(fit, "back_emf_constant", "Kt", "N*m/A", parameters.TestsFor("back_emf_constant"));
     kt.key = "torque_constant";
-    kt.basis = kTiedBasis;
-    kt.note = "assumed equal to Ke in SI units (no torque column was logged): not measured";
+    kt.basis = kTiedBasis;  // the assumption is stated by NoteTorqueConstantTakenAsBackEmf
     e.parameters.push_back(kt);
   }
   core::CopyCovariance(fit, covariance_names, &e);
@@ -413,10 +438,10 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
         q.note = "from the step's Kt/J with the inertia given by --known-inertia";
       }
   AddInformationShares(residual_groups, parameters, fit, &e);
-  if (st.usable && fit.parameters[parameters.Index("brush_drop")].fixed)
-    e.warnings.push_back("the step fit held the brush drop Vb at 0 (no locked-rotor plateaus at 2 or more current "
-                         "levels): on a brushed motor R and Ke then absorb Vb, and their intervals do not include "
-                         "that bias");
+  ReportCurrentZero(current_zero, parameters, fit, &e);
+  NoteBrushDropHeldAtZero(lr, st, &e);
+  NoteTorqueConstantTakenAsBackEmf(&e);
+  CutIntervalsAtPhysicalBounds(&e);
   WarnStrongCorrelations(&e);
 
   // Bootstrap replicates in the covariance order, for derived quantities.

@@ -72,4 +72,7 @@ struct MotorFitOptions {
 
 MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions& options);
 
+// Every key a result can hold under parameters, ratios or derived (for --require).
+std::vector<std::string> RequirableKeys();
+
 }  // namespace coilspin::joint

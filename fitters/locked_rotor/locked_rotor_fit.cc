@@ -16,6 +16,8 @@
 #include "fitters/locked_rotor/step_residual.h"
 #include "src/units/constants.h"
 #include "src/model/copper_resistance.h"
+#include "src/model/sensor_offsets.h"
+#include "src/ingest/noise_level.h"
 #include "src/ingest/small_text_and_statistics.h"
 
 namespace coilspin::locked_rotor {
@@ -32,6 +34,8 @@ constexpr int kGroupSigmaRounds = 3;
 // "At rest" is within this many noise σ of zero voltage and current (a Gaussian
 // sample falls outside 5 σ with a chance of 6·10⁻⁷).
 constexpr double kRestBandSigmas = 5.0;
+// A capture shows the current at zero when it rests at 0 V for this many samples before the step (common practice).
+constexpr std::size_t kMinRestSamples = 8;
 // Kt from a torque column needs this many plateaus (two unknowns, Kt and τ0, and one degree of freedom).
 constexpr std::size_t kMinTorquePlateaus = 3;
 
@@ -94,7 +98,13 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
       sl.log = log;
       sl.classification = c;
       sl.current_noise_A = NoiseFromDifferences(log->current_A);
-      sl.voltage_noise_V = NoiseFromDifferences(log->voltage_V);
+      const ChannelNoise voltage_noise = EstimateChannelNoise(log->voltage_V);
+      sl.voltage_noise_V = voltage_noise.sigma;
+      sl.voltage_noise_lag1 = voltage_noise.lag1;
+      if (c.onset >= kMinRestSamples) {
+        std::vector<double> before(log->voltage_V.begin(), log->voltage_V.begin() + static_cast<std::ptrdiff_t>(c.onset));
+        sl.from_rest = std::fabs(Median(std::move(before))) <= kRestBandSigmas * sl.voltage_noise_V;
+      }
       plan.step_logs.push_back(sl);
     } else {
       PlateauLog pl;
@@ -173,7 +183,7 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
     estimate->tests.push_back({kTest, pl.log->path, static_cast<long>(pl.log->size()),
                                "plateaus: " + std::to_string(pl.plateaus.size()) + " settled levels with current" +
                                    (pl.plateaus.empty() || !pl.plateaus.front().has_torque ? "" : ", torque logged"),
-                               {}, {}, {}});
+                               {}, {}, {}, {}});
     if (pl.plateaus.empty()) {
       const std::string text = pl.log->path + ": no settled plateau with current was found";
       estimate->tests.back().warnings.push_back(text);
@@ -186,7 +196,7 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
         {kTest, sl.log->path, static_cast<long>(sl.log->size()),
          "step capture: current rise resolved by " + Format("%.0f", sl.classification.rise_samples) +
              " samples per time constant; fitted sample by sample with the logged voltage as input",
-         {}, {}, {}});
+         {}, {}, {}, {}});
   }
   if (!plan.resistance_identified) {
     estimate->not_identified.push_back(
@@ -248,6 +258,10 @@ void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
   // explains would otherwise hide in a negative Vb instead of showing as drift.)
   const int vb = parameters->Ensure({"brush_drop", plan->estimate_brush_drop ? plan->brush_drop_start_V : 0.0,
                                      plan->brush_drop_scale_V, 0.0, {}, !plan->estimate_brush_drop});
+  // The current sensor's zero reading: the joint fit adds it first (estimated where a log
+  // shows the current at zero); on its own this test holds it at 0.
+  const int zero = parameters->Ensure({model::kCurrentOffsetKey, 0.0, 1.0, {}, {}, true});
+  if (!problem.Spec(zero).fixed) parameters->Use(model::kCurrentOffsetKey, kTest);
   parameters->Use("resistance", kTest);
   if (plan->estimate_brush_drop) parameters->Use("brush_drop", kTest);
   if (plan->measures_torque_constant) parameters->Use("torque_constant", kTest);
@@ -273,7 +287,7 @@ void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
       residual.mean_current_A.push_back(pl.plateaus[j].mean_current_A);
       residual.temperature_factor.push_back(pl.factors[j]);
     }
-    problem.AddResiduals(pl.voltage_group, {r, vb}, static_cast<int>(pl.plateaus.size()), residual);
+    problem.AddResiduals(pl.voltage_group, {r, vb, zero}, static_cast<int>(pl.plateaus.size()), residual);
     if (!plan->measures_torque_constant || !pl.plateaus.front().has_torque) continue;
     PlateauTorqueResidual torque;
     double sigma_N_m = 0.0;
@@ -298,10 +312,11 @@ void AddLockedRotor(LockedRotorPlan* plan, core::SharedParameters* parameters) {
                                        peak_A > 0.0 ? peak_A : 1.0, {}, {}, false});
     core::GroupSpec spec{sl.log->path + " step current", sl.current_noise_A > 0.0 ? sl.current_noise_A : 1.0};
     const int n = static_cast<int>(sl.log->size());
-    spec.input_noise = core::ProbedInputNoise(StepResidualOf(sl), &StepCurrentResidual::voltage_V, {r, l, vb, i0}, n,
-                                              sl.voltage_noise_V);  // counted by input_noise.h
+    spec.input_noise = core::ProbedInputNoise(StepResidualOf(sl), &StepCurrentResidual::voltage_V,
+                                              {r, l, vb, i0, zero}, n,
+                                              {sl.voltage_noise_V, sl.voltage_noise_lag1});  // counted by input_noise.h
     sl.group = problem.AddGroup(spec);
-    problem.AddResiduals(sl.group, {r, l, vb, i0}, n, StepResidualOf(sl));
+    problem.AddResiduals(sl.group, {r, l, vb, i0, zero}, n, StepResidualOf(sl));
   }
 }
 
@@ -375,7 +390,9 @@ void ReportLockedRotor(const LockedRotorPlan& plan, const core::FitResult& fit, 
   // Heating: R should not drift across plateaus once temperature is accounted for.
   for (std::size_t k = 0; k < plan.plateau_logs.size(); ++k) {
     const PlateauLog& pl = plan.plateau_logs[k];
-    if (auto drift = DetectResistanceDrift(pl.plateaus, pl.factors, fit.Get("brush_drop").value)) {
+    const int zero = fit.IndexOf(model::kCurrentOffsetKey);
+    const double zero_A = zero >= 0 ? fit.parameters[static_cast<std::size_t>(zero)].value : 0.0;
+    if (auto drift = DetectResistanceDrift(pl.plateaus, pl.factors, fit.Get("brush_drop").value, zero_A)) {
       const std::string text = pl.log->path + ": resistance " + (drift->relative_change > 0 ? "rose" : "fell") +
                                " by " + Format("%.1f", 100.0 * std::fabs(drift->relative_change)) +
                                " % from the first plateau to the last" +

@@ -60,9 +60,13 @@ struct StepLog {
   CaptureClassification classification;
   double factor = 1.0;
   double current_noise_A = 0.0;
-  double voltage_noise_V = 0.0;   // σ_v of the logged voltage (first differences)
+  double voltage_noise_V = 0.0;   // marginal σ_v of the logged voltage (src/ingest/noise_level.h)
+  double voltage_noise_lag1 = 0.0; // its lag-1 correlation φ_v as AR(1) noise
   double initial_current_A = 0.0;
   double inductance_start_H = 0.0;
+  // The supply rests at 0 V before the step: those samples read zero current, so the
+  // current sensor's zero reading (src/model/sensor_offsets.h).
+  bool from_rest = false;
   int group = -1;
 };
 

@@ -8,7 +8,8 @@
 // and a current that crosses zero inside an interval does so at the exact
 // instant, then restarts under the from-rest rule (it stays at zero when
 // |v_k| ≤ Vb: the brush drop opposes the current, it cannot drive it).
-// The recursion starts from î_0 = i0 (a nuisance parameter). Residual: i_k − î_k, in A.
+// The recursion starts from î_0 = i0 (a nuisance parameter). Residual:
+// (i_k − i_z) − î_k, in A, i_z the current sensor's zero reading (src/model/sensor_offsets.h).
 // Using the logged v rather than a nominal supply voltage keeps a supply's
 // internal resistance (the terminal voltage sags as current rises) out of L.
 
@@ -85,7 +86,7 @@ struct StepCurrentResidual {
   double temperature_factor = 1.0;  // f = (k + θ)/(k + θ_ref), 1 when unknown
   RestBand rest;                    // noise bands of v and i around zero
 
-  // p[0] = R at θ_ref [ohm], p[1] = L [H], p[2] = Vb [V], p[3] = i0 [A]
+  // p[0] = R at θ_ref [ohm], p[1] = L [H], p[2] = Vb [V], p[3] = i0 [A], p[4] = i_z [A]
   template <typename T>
   bool operator()(T const* const* p, T* residual) const {
     using std::exp;
@@ -93,12 +94,13 @@ struct StepCurrentResidual {
     const T& inductance_H = *p[1];
     const T& brush_drop_V = *p[2];
     T modelled_current_A = *p[3];
+    const T& zero_A = *p[4];
     const std::vector<double>& t = *time_s;
     const std::vector<double>& v = *voltage_V;
     const std::vector<double>& i = *current_A;
     const std::size_t n = t.size();
     for (std::size_t k = 0; k < n; ++k) {
-      residual[k] = i[k] - modelled_current_A;  // r_k = i_k − î_k
+      residual[k] = i[k] - zero_A - modelled_current_A;  // r_k = (i_k − i_z) − î_k
       if (k + 1 == n) break;
       modelled_current_A =
           Advance(t[k + 1] - t[k], v[k], modelled_current_A, resistance_ohm, inductance_H, brush_drop_V, rest);

@@ -6,6 +6,7 @@
 #include <numeric>
 
 #include "fitters/no_load/no_load_residual.h"
+#include "src/model/sensor_offsets.h"
 #include "src/model/copper_resistance.h"
 
 namespace coilspin::no_load {
@@ -55,7 +56,7 @@ NoLoadPlan PlanNoLoad(const std::vector<const BenchLog*>& logs, const std::vecto
     estimate->tests.push_back({kTest, logs[k]->path, static_cast<long>(logs[k]->size()),
                                "plateaus: " + std::to_string(nl.plateaus.size()) + " settled levels turning; speed: " +
                                    speeds[k].method,
-                               {}, {}, {}});
+                               {}, {}, {}, {}});
     plan.logs.push_back(nl);
   }
   // Friction start: Kt·ī = B·ω̄ + Tc·sgn(ω̄) by least squares, with Kt = Ke at its start.
@@ -140,6 +141,9 @@ void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::
     parameters->Use("resistance", kTest);
     parameters->Use("back_emf_constant", kTest);
   }
+  // The current sensor's zero reading (src/model/sensor_offsets.h): added first by the joint fit.
+  const int zero = parameters->Ensure({model::kCurrentOffsetKey, 0.0, 1.0, {}, {}, true});
+  if (!problem.Spec(zero).fixed) parameters->Use(model::kCurrentOffsetKey, kTest);
   int kt = -1, b = -1, tc = -1;
   if (plan->friction_identified) {
     kt = parameters->Ensure({torque_constant_name, plan->back_emf_start, 0.0, 0.0, {}, false});
@@ -176,11 +180,11 @@ void AddNoLoad(NoLoadPlan* plan, const std::string& torque_constant_name, core::
     const int count = static_cast<int>(nl.plateaus.size());
     if (plan->back_emf_identified) {
       nl.voltage_group = problem.AddGroup({nl.log->path + " no-load voltage", sigma_V > 0.0 ? sigma_V : 1.0});
-      problem.AddResiduals(nl.voltage_group, {r, vb, ke}, count, voltage);
+      problem.AddResiduals(nl.voltage_group, {r, vb, ke, zero}, count, voltage);
     }
     if (plan->friction_identified) {
       nl.current_group = problem.AddGroup({nl.log->path + " no-load current", sigma_A > 0.0 ? sigma_A : 1.0});
-      problem.AddResiduals(nl.current_group, {kt, b, tc}, count, current);
+      problem.AddResiduals(nl.current_group, {kt, b, tc, zero}, count, current);
     }
   }
 }

@@ -9,6 +9,8 @@
 #include "src/ingest/segmentation.h"
 #include "src/ingest/encoder_speed.h"
 #include "src/units/constants.h"
+#include "src/model/sensor_offsets.h"
+#include "src/ingest/small_text_and_statistics.h"
 
 namespace coilspin::spin_down {
 namespace {
@@ -16,6 +18,10 @@ namespace {
 constexpr const char* kTest = "spin-down";
 // A coast needs this many samples between power-off and rest to fit ω₀, b, c with a margin.
 constexpr std::size_t kMinCoastSamples = 20;
+// After power off the current is read as zero from this many samples on: opening
+// the circuit ends it within a sample, and one more keeps the switching edge out
+// (common practice).
+constexpr std::size_t kZeroCurrentSettleSamples = 2;
 // Uniform quantisation of step q has σ = q/√12 (statistics handbook: variance of a uniform distribution).
 const double kUniformSigmaPerStep = 1.0 / std::sqrt(12.0);
 
@@ -47,7 +53,7 @@ SpinDownPlan PlanSpinDown(const std::vector<const BenchLog*>& logs, std::optiona
   std::vector<double> all_b, all_c;
   for (const BenchLog* log : logs) {
     plan.summary_index.push_back(estimate->tests.size());
-    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}});
+    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}, {}});
     TestSummary& summary = estimate->tests.back();
     const auto warn = [&](const std::string& text) {
       summary.warnings.push_back(log->path + ": " + text);
@@ -102,13 +108,21 @@ SpinDownPlan PlanSpinDown(const std::vector<const BenchLog*>& logs, std::optiona
                      (fit_position ? "encoder position fitted directly (quantisation is the noise)"
                                    : "logged speed fitted") +
                      (c.voltage_V.empty() ? "" : "; terminal voltage fitted as back-EMF");
-    for (const auto& message : CheckCoast(*log, speed, *segment).messages) warn(message);
+    const CoastWarnings coast_warnings = CheckCoast(*log, speed, *segment);
+    for (const auto& message : coast_warnings.messages) warn(message);
+    if (!log->current_A.empty() && !coast_warnings.current_flows && c.power_off + kZeroCurrentSettleSamples < log->size())
+      c.zero_current_A.assign(log->current_A.begin() + static_cast<std::ptrdiff_t>(c.power_off + kZeroCurrentSettleSamples),
+                              log->current_A.end());
     if (!c.voltage_V.empty() && !plan.measures_back_emf && c.speed_start_rad_s > 0.0)
       plan.back_emf_start = c.voltage_V.front() / c.speed_start_rad_s;  // v = Ke·ω at power-off
     plan.measures_back_emf = plan.measures_back_emf || !c.voltage_V.empty();
     plan.logs.push_back(std::move(c));
   }
   plan.usable = !plan.logs.empty();
+  std::vector<double> zero_readings;
+  for (const auto& c : plan.logs) zero_readings.insert(zero_readings.end(), c.zero_current_A.begin(), c.zero_current_A.end());
+  plan.shows_current_at_zero = !zero_readings.empty();
+  if (plan.shows_current_at_zero) plan.zero_current_start_A = Median(std::move(zero_readings));
   if (plan.usable) {
     std::sort(all_b.begin(), all_b.end());
     std::sort(all_c.begin(), all_c.end());
@@ -136,9 +150,19 @@ void AddSpinDown(SpinDownPlan* plan, Mechanics mechanics, double inertia_start_k
     friction.push_back(parameters->Ensure({"inertia", j0, 0.0, 0.0, {}, inertia_known}));
     for (const char* key : {"viscous_friction", "coulomb_friction", "inertia"}) parameters->Use(key, kTest);
   }
+  // The current sensor's zero reading (src/model/sensor_offsets.h): added first by the joint fit.
+  const int zero = parameters->Ensure({model::kCurrentOffsetKey, 0.0, 1.0, {}, {}, true});
+  const bool zero_estimated = !problem.Spec(zero).fixed;
   for (std::size_t k = 0; k < plan->logs.size(); ++k) {
     CoastLog& c = plan->logs[k];
     const std::string tag = std::to_string(k);
+    if (zero_estimated && !c.zero_current_A.empty()) {
+      parameters->Use(model::kCurrentOffsetKey, kTest);
+      const double sigma = NoiseFromDifferences(c.zero_current_A);
+      c.zero_current_group = problem.AddGroup({c.log->path + " coast current at zero", sigma > 0.0 ? sigma : 1.0});
+      problem.AddResiduals(c.zero_current_group, {zero}, static_cast<int>(c.zero_current_A.size()),
+                           ZeroReadingResidual{c.zero_current_A});
+    }
     const double speed_scale = std::max(std::fabs(c.speed_start_rad_s), 1.0);
     const int w0 = parameters->Ensure({"coast_speed_" + tag, c.speed_start_rad_s, speed_scale, 0.0, {}, false});
     std::vector<int> motion = {w0};
@@ -150,7 +174,6 @@ void AddSpinDown(SpinDownPlan* plan, Mechanics mechanics, double inertia_start_k
       motion.insert(motion.begin(), theta0);
       const double sigma = c.position_sigma_rad > 0.0 ? c.position_sigma_rad : NoiseFromDifferences(c.position_rad);
       core::GroupSpec position_spec{c.log->path + " coast position", sigma > 0.0 ? sigma : 1.0};
-      position_spec.quantised = true;  // encoder counts
       const CoastPositionResidual residual{c.time_s, c.position_rad, mechanics};
       if (c.count_rad > 0.0) {  // the encoder's error counted exactly (core/quantisation.h)
         position_spec.quantisation_step = c.count_rad;
@@ -189,6 +212,7 @@ void ReportSpinDown(const SpinDownPlan& plan, const core::FitResult& fit, MotorE
     };
     add(c.motion_group, c.position_rad.empty() ? "speed" : "position", c.position_rad.empty() ? "rad/s" : "rad");
     add(c.voltage_group, "voltage", "V");
+    add(c.zero_current_group, "current", "A");
   }
 }
 

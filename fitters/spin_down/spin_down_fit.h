@@ -11,7 +11,8 @@
 // On its own the coast fixes only ratios; with Kt-scaled friction from a
 // no-load test, or a known inertia, it fixes J, B and Tc in absolute units.
 // Warnings: current flowing during the coast (not open circuit: a driver or
-// diode brakes it), a log that stops long before rest.
+// diode brakes it), a log that stops long before rest. A coast with its current
+// logged and open terminals reads the current sensor's zero (zero_reading_residual.h).
 
 #include <optional>
 #include <string>
@@ -21,6 +22,7 @@
 #include "fitters/core/motor_estimate.h"
 #include "fitters/core/shared_parameters.h"
 #include "fitters/spin_down/coast_residual.h"
+#include "fitters/spin_down/zero_reading_residual.h"
 #include "src/ingest/bench_log.h"
 
 namespace coilspin::spin_down {
@@ -39,8 +41,13 @@ struct CoastLog {
   double position_start_rad = 0.0;    // θ₀ start
   double position_sigma_rad = 0.0;    // encoder quantisation σ = q/√12
   double count_rad = 0.0;             // the encoder's step q when positions are whole counts; 0 otherwise
+  // The current after power off with open terminals (no braking seen): readings of
+  // zero current, so of the sensor's zero reading (src/model/sensor_offsets.h); empty
+  // when the current is not logged or flows.
+  std::vector<double> zero_current_A;
   int motion_group = -1;
   int voltage_group = -1;
+  int zero_current_group = -1;
 };
 
 struct SpinDownPlan {
@@ -48,6 +55,8 @@ struct SpinDownPlan {
   bool usable = false;
   bool measures_back_emf = false;     // a coast voltage was logged
   double back_emf_start = 0.0;        // Ke ≈ v/ω at power-off, when it was
+  bool shows_current_at_zero = false; // a coast logged its current with open terminals
+  double zero_current_start_A = 0.0;  // the median of those readings: the current sensor's zero reading
   double viscous_over_inertia_start = 0.0;  // b
   double coulomb_over_inertia_start = 0.0;  // c
   std::vector<std::size_t> summary_index;

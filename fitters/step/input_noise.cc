@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "fitters/core/added_covariance.h"
+#include "fitters/core/ar1_noise.h"
 
 namespace coilspin::step {
 namespace {
@@ -56,10 +57,9 @@ void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, core::FitResult* fi
   const Eigen::Index p = fit->covariance.rows();
   Eigen::MatrixXd extra = Eigen::MatrixXd::Zero(p, p);
   std::mt19937_64 generator(kProbeSeed);
-  std::normal_distribution<double> normal(0.0, 1.0);
   for (const StepLog& log : plan.logs) {
-    const double sigma_v = log.voltage_noise_V;
-    if (!(sigma_v > 0.0)) continue;
+    const core::NoiseLevel noise{log.voltage_noise_V, log.voltage_noise_lag1};
+    if (!(noise.sigma > 0.0)) continue;
     std::vector<Channel> channels;
     channels.push_back({log.Residual(StepChannel::kCurrent), log.current_parameters, {}, {}, {},
                         fit->groups[log.current_group].sigma});
@@ -73,9 +73,10 @@ void AddStepVoltageNoiseCovariance(const StepTestPlan& plan, core::FitResult* fi
     // E[g·gᵀ] over the probes; g in the global parameter layout.
     const std::vector<double>& voltage = log.log->voltage_V;
     Eigen::MatrixXd moment = Eigen::MatrixXd::Zero(p, p);
-    std::vector<double> perturbed(voltage.size());
+    std::vector<double> drawn(voltage.size()), perturbed(voltage.size());
     for (int probe = 0; probe < kInputNoiseProbes; ++probe) {
-      for (std::size_t k = 0; k < voltage.size(); ++k) perturbed[k] = voltage[k] + sigma_v * normal(generator);
+      core::DrawAr1(generator, noise, &drawn);  // the channel's coloured noise (core/ar1_noise.h)
+      for (std::size_t k = 0; k < voltage.size(); ++k) perturbed[k] = voltage[k] + drawn[k];
       Eigen::VectorXd g = Eigen::VectorXd::Zero(p);
       for (Channel& ch : channels) {
         StepResidual moved = ch.residual;

@@ -5,10 +5,12 @@
 #include <numeric>
 
 #include "src/ingest/encoder_speed.h"
+#include "src/ingest/noise_level.h"
 #include "src/ingest/segmentation.h"
 #include "src/ingest/whole_count_step.h"
 #include "src/ingest/small_text_and_statistics.h"
 #include "src/model/copper_resistance.h"
+#include "src/model/sensor_offsets.h"
 #include "src/units/constants.h"
 
 namespace coilspin::step {
@@ -82,7 +84,7 @@ StepTestPlan PlanStep(const std::vector<const BenchLog*>& logs, std::optional<do
   std::vector<double> r, l, ke, a, b, c;
   for (const BenchLog* log : logs) {
     plan.summary_index.push_back(estimate->tests.size());
-    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}});
+    estimate->tests.push_back({kTest, log->path, static_cast<long>(log->size()), "", {}, {}, {}, {}});
     TestSummary& summary = estimate->tests.back();
     StepLog s;
     s.log = log;
@@ -104,7 +106,9 @@ StepTestPlan PlanStep(const std::vector<const BenchLog*>& logs, std::optional<do
     }
     const double speed_noise = s.fit_position ? NoiseFromDifferences(s.speed_rad_s) : s.motion_noise;
     s.current_noise_A = NoiseFromDifferences(log->current_A);
-    s.voltage_noise_V = NoiseFromDifferences(log->voltage_V);
+    const ChannelNoise voltage_noise = EstimateChannelNoise(log->voltage_V);
+    s.voltage_noise_V = voltage_noise.sigma;
+    s.voltage_noise_lag1 = voltage_noise.lag1;
     const auto [low_V, high_V] = std::minmax_element(log->voltage_V.begin(), log->voltage_V.end());
     s.jump_V = kJumpFraction * (*high_V - *low_V);
     s.from_rest = std::fabs(Leading(s.speed_rad_s)) <= kTurningSigmas * speed_noise;
@@ -184,6 +188,9 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
   for (const char* key : {"resistance", "inductance", "back_emf_constant", "inertia", "viscous_friction",
                           "coulomb_friction", "brush_drop"})
     parameters->Use(key, kTest);
+  // The current sensor's zero reading (src/model/sensor_offsets.h): added first by the joint fit.
+  const int zero = parameters->Ensure({model::kCurrentOffsetKey, 0.0, 1.0, {}, {}, true});
+  if (!problem.Spec(zero).fixed) parameters->Use(model::kCurrentOffsetKey, kTest);
   if (!tied) parameters->Use(torque_constant_name, kTest);
 
   for (std::size_t k = 0; k < plan->logs.size(); ++k) {
@@ -198,15 +205,17 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
         parameters->Ensure({"step_initial_speed_" + tag, s.from_rest ? 0.0 : Leading(s.speed_rad_s),
                             peak_speed > 0.0 ? peak_speed : 1.0, {}, {}, s.from_rest})};
     s.torque_constant_is_back_emf = tied;
-    s.current_parameters = shared;
-    s.current_parameters.insert(s.current_parameters.end(), state.begin(), state.end());
+    std::vector<int> shared_and_state = shared;
+    shared_and_state.insert(shared_and_state.end(), state.begin(), state.end());
+    s.current_parameters = shared_and_state;
+    s.current_parameters.push_back(zero);
     // The logged voltage's noise in each channel is counted by input_noise.h.
     core::GroupSpec current_spec{log.path + " step current", s.current_noise_A > 0.0 ? s.current_noise_A : 1.0};
     current_spec.input_noise = core::ProbedInputNoise(s.Residual(StepChannel::kCurrent), &StepResidual::voltage_V,
-                                                      s.current_parameters, n, s.voltage_noise_V);
+                                                      s.current_parameters, n, {s.voltage_noise_V, s.voltage_noise_lag1});
     s.current_group = problem.AddGroup(current_spec);
     problem.AddResiduals(s.current_group, s.current_parameters, n, s.Residual(StepChannel::kCurrent));
-    s.motion_parameters = s.current_parameters;
+    s.motion_parameters = shared_and_state;
     if (s.fit_position) {
       const double theta0 = log.position_rad.front();
       s.motion_parameters.push_back(
@@ -214,14 +223,13 @@ void AddStep(StepTestPlan* plan, const std::string& torque_constant_name, double
     }
     core::GroupSpec motion_spec{log.path + (s.fit_position ? " step position" : " step speed"),
                                 s.motion_noise > 0.0 ? s.motion_noise : 1.0};
-    motion_spec.quantised = s.fit_position;
     if (s.fit_position && s.count_rad > 0.0) {  // the encoder's error counted exactly (core/quantisation.h)
       motion_spec.quantisation_step = s.count_rad;
       motion_spec.modelled_reading = core::ModelledReadingOf(s.Residual(StepChannel::kPosition), s.motion_parameters,
                                                              &log.position_rad);
     }
     motion_spec.input_noise = core::ProbedInputNoise(s.Residual(s.MotionChannel()), &StepResidual::voltage_V,
-                                                     s.motion_parameters, n, s.voltage_noise_V);
+                                                     s.motion_parameters, n, {s.voltage_noise_V, s.voltage_noise_lag1});
     s.motion_group = problem.AddGroup(motion_spec);
     problem.AddResiduals(s.motion_group, s.motion_parameters, n, s.Residual(s.MotionChannel()));
   }

@@ -44,7 +44,8 @@ struct StepLog {
   std::vector<double> speed_rad_s;         // logged, or derived from position (start values only)
   double temperature_factor = 1.0;         // f
   double current_noise_A = 0.0;
-  double voltage_noise_V = 0.0;
+  double voltage_noise_V = 0.0;           // marginal σ of the logged voltage (src/ingest/noise_level.h)
+  double voltage_noise_lag1 = 0.0;        // its lag-1 correlation as AR(1) noise
   double motion_noise = 0.0;               // σ of speed [rad/s] or position [rad]
   double count_rad = 0.0;                  // the encoder's step q when positions are whole counts; 0 otherwise
   bool from_rest = false;                  // ω₀ = 0 exactly

@@ -3,7 +3,7 @@
 // the model state (î, ω̂, θ̂) is simulated from the initial state with the
 // LOGGED terminal voltage as input (step_dynamics.h), never reset to the data,
 // so noise on the outputs stays in the residuals and does not enter the model:
-//   current:   i_k − î(t_k)                 [A]
+//   current:   (i_k − i_z) − î(t_k)         [A]   (i_z: the current sensor's zero reading)
 //   speed:     ω_k − ω̂(t_k)                 [rad/s]
 //   position:  θ_k − θ̂(t_k)                 [rad]   (encoder counts fitted directly)
 // One functor per channel; each runs the same simulation (the cost per sample
@@ -12,7 +12,8 @@
 // Parameters, in physical units, in this order:
 //   R at θ_ref [ohm] (times the copper factor f of the log), L [H], Ke [V·s/rad],
 //   Kt [N·m/A] (absent when Kt is taken equal to Ke: the same parameter plays both roles),
-//   J [kg·m²], B [N·m·s/rad], Tc [N·m], Vb [V], i₀ [A], ω₀ [rad/s], θ₀ [rad] (position only).
+//   J [kg·m²], B [N·m·s/rad], Tc [N·m], Vb [V], i₀ [A], ω₀ [rad/s], θ₀ [rad] (position only),
+//   i_z [A] (current only).
 
 #include <cmath>
 #include <vector>
@@ -38,7 +39,8 @@ struct StepResidual {
 
   // Number of parameters the functor expects.
   int ParameterCount() const {
-    return (torque_constant_is_back_emf ? 9 : 10) + (channel == StepChannel::kPosition ? 1 : 0);
+    return (torque_constant_is_back_emf ? 9 : 10) + (channel == StepChannel::kCurrent ? 1 : 0) +
+           (channel == StepChannel::kPosition ? 1 : 0);
   }
 
   template <typename T>
@@ -57,6 +59,7 @@ struct StepResidual {
     x.current_A = *p[next++];
     x.speed_rad_s = *p[next++];
     x.angle_rad = channel == StepChannel::kPosition ? *p[next++] : T(0.0);
+    const T zero = channel == StepChannel::kCurrent ? *p[next++] : T(0.0);  // i_z
     const std::vector<double>& t = *time_s;
     const std::vector<double>& v = *voltage_V;
     const std::vector<double>& y = *measured;
@@ -66,7 +69,7 @@ struct StepResidual {
       const T& modelled = channel == StepChannel::kCurrent ? x.current_A
                           : channel == StepChannel::kSpeed ? x.speed_rad_s
                                                            : x.angle_rad;
-      residual[k] = y[k] - modelled;
+      residual[k] = y[k] - zero - modelled;
       if (k + 1 == n) break;
       const double change_V = v[k + 1] - v[k];
       const double slope_V_per_s = std::fabs(change_V) > jump_V ? 0.0 : change_V / (t[k + 1] - t[k]);

@@ -1,13 +1,14 @@
 #include "src/cli/fit_command.h"
 
 #include <algorithm>
-#include <cstdio>
+#include <charconv>
 #include <cstdlib>
 #include <iostream>
 #include <ostream>
 #include <stdexcept>
 
 #include "fitters/joint/motor_fit.h"
+#include "src/cli/batch_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
 #include "src/cli/memory_check.h"
@@ -16,10 +17,14 @@
 #include "src/cli/progress_printer.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
+#include "src/ingest/outliers.h"
 #include "src/ingest/read_bench_log.h"
 #include "src/output/atomic_file.h"
 #include "src/output/parameter_table.h"
 #include "src/output/result_json.h"
+#include "src/output/verification_json.h"
+#include "src/output/verification_table.h"
+#include "src/verify/datasheet_file.h"
 
 namespace coilspin::cli {
 namespace {
@@ -31,10 +36,12 @@ struct PlannedTest {
   std::string shown_path;  // how the result names the log: as the user wrote it
 };
 
+// The shortest text that reads back as the same double (so a setting keeps
+// every digit the user gave).
 std::string Text(double value) {
   char buffer[32];
-  std::snprintf(buffer, sizeof buffer, "%g", value);
-  return buffer;
+  const auto written = std::to_chars(buffer, buffer + sizeof buffer, value);
+  return std::string(buffer, written.ptr);
 }
 
 template <typename T>
@@ -45,7 +52,8 @@ std::optional<T> FirstOf(const std::optional<T>& flag, const std::optional<T>& s
 }  // namespace
 
 void DeclareFitOptions(CLI::App* c, FitArguments* a) {
-  c->add_option("session", a->session_path, "Session file (TOML) naming the motor, bench settings and test logs")
+  c->add_option("session", a->session_paths,
+                "Session file (TOML) naming the motor, bench settings and test logs; several with --out-dir")
       ->check(CLI::ExistingFile);
   c->add_option("--locked-rotor", a->locked_rotor_files, "Locked-rotor log (plateaus or a step capture); repeatable");
   c->add_option("--no-load", a->no_load_files, "No-load log (free shaft, settled supply levels); repeatable");
@@ -88,13 +96,18 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--require", a->required,
                 "Parameter that must be determined (else exit status 1), e.g. --require inductance");
   c->add_option("--json", a->json_path,
-                "Write the result file (coilspin.result/1) here, atomically; - writes it to standard output "
+                "Write the result file (coilspin.result/2) here, atomically; - writes it to standard output "
                 "instead of the table");
+  c->add_option("--datasheet", a->datasheet_path,
+                "Verify the fitted motor against this datasheet (TOML): the table gains a verification section, "
+                "the result file a \"verification\" block; exit status 1 when a line does not pass");
+  c->add_option("--out-dir", a->out_dir,
+                "Fit every session given (a lot of motors) on all cores, one result file per session in this "
+                "folder, named after the session file");
   c->add_flag("--quiet", a->quiet, "Print no table");
 }
 
-int RunFit(const FitArguments& a, std::ostream& out) {
-  if (a.json_path) RequireOutputPath("--json", *a.json_path);
+FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, const std::string& result_name) {
   std::optional<Session> session;
   if (!a.session_path.empty()) session = LoadSession(a.session_path);
 
@@ -150,10 +163,17 @@ int RunFit(const FitArguments& a, std::ostream& out) {
                        "--noise " + std::string(units::QuantityName(quantity)) + "=" + text +
                            ": expected a number in SI units (A, V, rad/s, rad)");
     options.noise.push_back({std::string(units::QuantityName(quantity)), sigma});
-    estimate_settings_noise.push_back({"noise_" + std::string(units::QuantityName(quantity)), text});
+    estimate_settings_noise.push_back({"noise_" + std::string(units::QuantityName(quantity)), Text(sigma)});
   }
   std::string error;
   if (!options.IsValid(&error)) throw InputError(InputErrorKind::kBadOption, "", 0, 0, error);
+  const std::vector<std::string> known = joint::RequirableKeys();
+  for (const auto& key : a.required)
+    if (std::find(known.begin(), known.end(), key) == known.end()) {
+      std::string list;
+      for (const auto& k : known) list += (list.empty() ? "" : ", ") + k;
+      throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--require " + key + ": no such key; a result holds " + list);
+    }
 
   std::vector<PlannedLog> sizes;
   for (const auto& p : planned) sizes.push_back({p.path, p.kind});
@@ -169,6 +189,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
   for (const auto& p : planned) {
     if (progress) progress->Report("reading " + p.shown_path, static_cast<int>(logs.size()), num_logs);
     BenchLog log = ReadBenchLog(p.path, p.read);
+    SetAsideOutliers(&log);
     RequireForTest(log, p.kind);
     log.path = p.shown_path;
     logs.push_back({p.kind, std::move(log)});
@@ -200,27 +221,79 @@ int RunFit(const FitArguments& a, std::ostream& out) {
     if (p.kind == TestKind::kNoLoad) required.push_back("back_emf_constant");
     if (p.kind == TestKind::kSpinDown) required.push_back("viscous_over_inertia");
   }
-  // A key is determined when the result holds it (a fit without a usable covariance
-  // lists only the model parameters as not identified, so absence is what counts).
-  const auto determined = [&estimate](const std::string& key) {
-    const auto named = [&key](const QuantityEstimate& q) { return q.key == key; };
-    return estimate.Find(key) != nullptr || std::any_of(estimate.ratios.begin(), estimate.ratios.end(), named) ||
-           std::any_of(estimate.derived.begin(), estimate.derived.end(), named);
+  FitOutcome outcome;
+  const auto present = [&](const std::string& key) {
+    for (const auto* section : {&estimate.parameters, &estimate.ratios, &estimate.derived})
+      for (const auto& q : *section)
+        if (q.key == key) return true;
+    return false;
   };
-  std::vector<std::string> undetermined;
-  for (const auto& key : required)
-    if (!determined(key) && std::find(undetermined.begin(), undetermined.end(), key) == undetermined.end())
-      undetermined.push_back(key);
+  for (const auto& key : required) {
+    if (present(key) || std::find_if(outcome.undetermined.begin(), outcome.undetermined.end(),
+                                     [&](const auto& u) { return u.first == key; }) != outcome.undetermined.end())
+      continue;
+    std::string reason = "the given tests do not determine it";
+    for (const auto& [missing, why] : estimate.not_identified)
+      if (missing == key) reason = why;
+    outcome.undetermined.push_back({key, key + " not determined: " + reason});
+  }
+  for (const auto& t : estimate.tests)  // a test given that added nothing to the fit
+    if (!t.contributed)
+      outcome.undetermined.push_back(
+          {t.file, t.file + ": the " + t.kind + " log contributed nothing to the fit (" + t.method + ")"});
+  if (sheet) outcome.verification = verify::Verify(*sheet, {{result_name, estimate}});
+  outcome.estimate = std::move(estimate);
+  return outcome;
+}
 
+std::string ResultText(const FitOutcome& o) {
+  if (!o.verification) return output::ResultJson(o.estimate);
+  return output::ResultJson(o.estimate, output::ResultVerificationBlock(*o.verification));
+}
+
+std::vector<std::string> StatusReasons(const FitOutcome& o, bool verification_sets_status) {
+  std::vector<std::string> reasons;
+  for (const auto& [what, sentence] : o.undetermined) reasons.push_back(sentence);
+  if (o.verification && verification_sets_status)
+    for (const verify::MotorCheck& m : o.verification->motors)
+      for (const verify::LineCheck& c : m.lines)
+        if (c.decision.verdict != verify::Verdict::kPass)
+          reasons.push_back("datasheet line " + c.key + ": " + std::string(verify::VerdictName(c.decision.verdict)));
+  return reasons;
+}
+
+int RunFit(const FitArguments& a, std::ostream& out) {
+  if (a.json_path) RequireOutputPath("--json", *a.json_path);  // before any work (output_path.h)
+  std::optional<verify::Datasheet> sheet;  // read first: a bad sheet stops before any fit
+  if (!a.datasheet_path.empty()) sheet = verify::LoadDatasheet(a.datasheet_path);
   const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
+  const std::string name = a.json_path && !json_on_stdout ? *a.json_path
+                           : !a.session_path.empty()      ? a.session_path
+                                                          : "this fit";
+  const FitOutcome outcome = FitOneMotor(a, sheet ? &*sheet : nullptr, name);
   if (json_on_stdout) {
-    out << output::ResultJson(estimate);
+    out << ResultText(outcome);
     if (!out.flush()) throw std::runtime_error("cannot write the result to standard output");
   } else if (a.json_path) {
-    output::WriteFileAtomically(*a.json_path, output::ResultJson(estimate));
+    output::WriteFileAtomically(*a.json_path, ResultText(outcome));
   }
-  if (!a.quiet && !json_on_stdout) out << output::ParameterTable(estimate);
-  return undetermined.empty() ? kSuccess : kUndetermined;
+  if (!a.quiet && !json_on_stdout) {
+    out << output::ParameterTable(outcome.estimate);
+    if (outcome.verification) out << "\n" << output::VerificationText(*outcome.verification);
+  }
+  // Why the exit status is 1, on stderr whether or not the table was printed.
+  const std::vector<std::string> reasons = StatusReasons(outcome, a.verification_sets_status);
+  for (const std::string& reason : reasons) std::cerr << "coilspin: " << reason << "\n";
+  return reasons.empty() ? kSuccess : kUndetermined;
+}
+
+int RunFitCommand(FitArguments a, std::ostream& out) {
+  if (a.out_dir) return RunBatchFit(a, out);
+  if (a.session_paths.size() > 1)
+    throw InputError(InputErrorKind::kBadOption, "", 0, 0,
+                     "several session files are a lot of motors: add --out-dir DIR for one result file each");
+  if (!a.session_paths.empty()) a.session_path = a.session_paths.front();
+  return RunFit(a, out);
 }
 
 }  // namespace coilspin::cli

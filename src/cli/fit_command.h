@@ -5,12 +5,17 @@
 #include <iosfwd>
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
+
+#include "fitters/core/motor_estimate.h"
+#include "src/verify/verification.h"
 
 namespace coilspin::cli {
 
 struct FitArguments {
-  std::string session_path;
+  std::vector<std::string> session_paths;  // the positional session files (several only with --out-dir)
+  std::string session_path;                // the one session of a single fit
   std::vector<std::string> locked_rotor_files;
   std::vector<std::string> no_load_files;
   std::vector<std::string> spin_down_files;
@@ -31,8 +36,11 @@ struct FitArguments {
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined
-  std::optional<std::string> json_path;  // "-": the result file on stdout (and no table there)
+  std::optional<std::string> json_path;  // --json; "-": the result file on stdout (and no table there)
+  std::string datasheet_path;            // --datasheet: verify the fitted motor against it
+  std::optional<std::string> out_dir;    // --out-dir: a lot, one result file per session (batch_fit.h)
   bool quiet = false;
+  bool verification_sets_status = true;  // false for the demo: its sheet fails a line on purpose
 };
 
 // Declares the fit options on `command` (a CLI11 subcommand).
@@ -42,5 +50,25 @@ void DeclareFitOptions(CLI::App* command, FitArguments* arguments);
 // (--json -), result file when asked (its path checked before any log is read).
 // Throws InputError for bad input (nothing written); returns 0 or 1.
 int RunFit(const FitArguments& arguments, std::ostream& out);
+
+// `coilspin fit` as parsed: one session (or flags) → RunFit; several sessions,
+// or --out-dir → the batch (batch_fit.h).
+int RunFitCommand(FitArguments arguments, std::ostream& out);
+
+// One motor's fit and, with a datasheet, its verification; what RunFit and
+// the batch share. `result_name` names the motor in the verification.
+struct FitOutcome {
+  MotorEstimate estimate;
+  std::vector<std::pair<std::string, std::string>> undetermined;  // key, reason (exit status 1)
+  std::optional<verify::Verification> verification;
+};
+FitOutcome FitOneMotor(const FitArguments& arguments, const verify::Datasheet* sheet, const std::string& result_name);
+
+// The result file's text (with the verification block when there is one).
+std::string ResultText(const FitOutcome& outcome);
+
+// Why the exit status is 1, one line each ("inductance not determined: ...",
+// "datasheet line no_load_speed: fail"); empty when it is 0.
+std::vector<std::string> StatusReasons(const FitOutcome& outcome, bool verification_sets_status);
 
 }  // namespace coilspin::cli

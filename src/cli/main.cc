@@ -8,34 +8,30 @@
 #include <new>
 
 #include "src/cli/consistency_command.h"
+#include "src/cli/demo_session.h"
 #include "src/cli/exit_codes.h"
+#include "src/cli/export_command.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
 #include "src/cli/unknown_option.h"
+#include "src/cli/tune_command.h"
+#include "src/cli/verify_command.h"
 #include "src/ingest/input_error.h"
-
-namespace {
-
-// The demo session shipped in datasets-demo/ (COILSPIN_DEMO_DIR overrides the built-in path).
-std::string DemoSession() {
-  const char* folder = std::getenv("COILSPIN_DEMO_DIR");
-  return std::string(folder ? folder : COILSPIN_DEMO_DIR) + "/session.toml";
-}
-
-}  // namespace
 
 int main(int argc, char** argv) {
   using namespace coilspin;
   CLI::App app{"coilspin: permanent-magnet DC motor parameters from bench logs, with confidence intervals"};
   app.require_subcommand(1);
   app.set_version_flag("--version", "coilspin 0.1.0");
+  app.set_help_all_flag("--help-all", "Print the help of every command and exit (the manual page is made from it)");
 
   cli::FitArguments fit;
   CLI::App* fit_command = app.add_subcommand("fit", "Fit motor parameters to bench logs");
   cli::DeclareFitOptions(fit_command, &fit);
 
   cli::FitArguments demo;
-  CLI::App* demo_command = app.add_subcommand("demo", "Fit the bundled demo motor and print its parameter table");
+  CLI::App* demo_command = app.add_subcommand(
+      "demo", "Fit the bundled demo motor, print its parameter table and verify it against the demo datasheet");
   demo_command->add_option("--json", demo.json_path,
                            "Also write the result file here; - writes it to standard output instead of the table");
 
@@ -47,6 +43,21 @@ int main(int argc, char** argv) {
   CLI::App* consistency_command =
       app.add_subcommand("consistency", "Check a datasheet's torque and back-EMF constants against Kt = Ke (SI)");
   cli::DeclareConsistencyOptions(consistency_command, &consistency);
+
+  cli::ExportArguments export_arguments;
+  CLI::App* export_command =
+      app.add_subcommand("export", "Write a fitted motor for other tools: SPICE, state-space, C++ header, CSV");
+  cli::DeclareExportOptions(export_command, &export_arguments);
+
+  cli::VerifyArguments verify;
+  CLI::App* verify_command = app.add_subcommand(
+      "verify", "Verify result files (one motor or a lot) against a supplier's datasheet, line by line");
+  cli::DeclareVerifyOptions(verify_command, &verify);
+
+  cli::TuneArguments tune;
+  CLI::App* tune_command =
+      app.add_subcommand("tune", "PI gains of a drive's current and speed loops for a fitted motor");
+  cli::DeclareTuneOptions(tune_command, &tune);
 
   // A reader that closes the pipe early (`coilspin fit ... --json - | head`) makes a write fail, not a signal.
   std::signal(SIGPIPE, SIG_IGN);
@@ -61,13 +72,19 @@ int main(int argc, char** argv) {
     return code == 0 ? cli::kSuccess : cli::kBadInput;
   }
   try {
-    if (*fit_command) return cli::RunFit(fit, std::cout);
+    if (*fit_command) return cli::RunFitCommand(fit, std::cout);
     if (*demo_command) {
-      demo.session_path = DemoSession();
+      demo.session_path = cli::DemoSessionPath();
+      demo.datasheet_path = cli::DemoDatasheetPath();
+      demo.verification_sets_status = false;  // the demo's sheet fails a line on purpose
+      std::cerr << "coilspin demo: fitting " << demo.session_path << "\n";
       return cli::RunFit(demo, std::cout);
     }
+    if (*verify_command) return cli::RunVerify(verify, std::cout, std::cerr);
     if (*simulate_command) return cli::RunSimulate(simulate);
     if (*consistency_command) return cli::RunConsistency(consistency, std::cout);
+    if (*export_command) return cli::RunExport(export_arguments, std::cout, std::cerr);
+    if (*tune_command) return cli::RunTune(tune, std::cout, std::cerr);
   } catch (const InputError& e) {
     std::cerr << "coilspin: error: " << e.what() << "\n";
     return cli::kBadInput;

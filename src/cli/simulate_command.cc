@@ -136,8 +136,24 @@ model::MotorParameters MotorFor(const SimulateArguments& a, Kind kind) {
   return motor;
 }
 
+// What the log carries, for the artefact options' rules.
+ArtefactScope ScopeOf(const SimulateArguments& a, Kind kind) {
+  ArtefactScope scope;
+  scope.free_shaft = kind != Kind::kLockedRotor;
+  scope.voltage = !(kind == Kind::kSpinDown && a.no_coast_voltage);
+  scope.current = !(kind == Kind::kSpinDown && a.no_coast_current);
+  scope.speed = scope.free_shaft && LogsSpeed(a);
+  scope.torque = a.log_torque;
+  scope.voltage_noise = a.bench.voltage_noise_sigma_V > 0.0;
+  scope.current_noise = a.bench.current_noise_sigma_A > 0.0;
+  scope.speed_noise = a.speed_noise_sigma_rad_s.value_or(0.0) > 0.0;
+  scope.torque_noise = a.torque_noise_sigma_N_m.value_or(0.0) > 0.0;
+  return scope;
+}
+
 model::BenchConditions BenchFor(const SimulateArguments& a) {
   model::BenchConditions bench = a.bench;
+  ApplyArtefacts(a.artefacts, &bench);
   bench.encoder_counts_per_rev = a.counts_per_rev.value_or(0);
   bench.encoder_start_phase = a.encoder_start_phase.value_or(0.0);
   bench.gear_ratio = a.gear_ratio.value_or(bench.gear_ratio);
@@ -411,6 +427,7 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
                 "Motor turns per output turn: speed and position read at the gearbox output")
       ->check(PositiveNumber());
   c->add_option("--seed", a->bench.seed, "Noise seed (same seed, same file)");
+  DeclareArtefactOptions(c, &a->artefacts);
   // The file.
   c->add_option("--time-unit", a->style.time_unit, "s | ms | us");
   c->add_option("--voltage-unit", a->style.voltage_unit, "V | mV");
@@ -427,6 +444,7 @@ int RunSimulate(const SimulateArguments& a) {
   RequireOutputPath("--out", a.out_path);
   const Kind kind = KindOf(a.kind);
   RejectInapplicable(a, kind);
+  RejectInapplicableArtefacts(a.artefacts, ScopeOf(a, kind));
   const model::MotorParameters motor = MotorFor(a, kind);
   const model::BenchConditions bench = BenchFor(a);
   output::CsvStyle style = StyleFor(a, bench);

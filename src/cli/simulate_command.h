@@ -15,6 +15,7 @@
 #include <string>
 #include <vector>
 
+#include "src/cli/simulate_artefact_options.h"
 #include "src/model/bench_conditions.h"
 #include "src/model/motor_parameters.h"
 #include "src/output/bench_log_csv.h"
@@ -52,6 +53,7 @@ struct SimulateArguments {
   output::CsvStyle style;
   std::string delimiter = ",";
   std::vector<std::string> rename_specs;  // quantity=header
+  ArtefactArguments artefacts;            // a real rig's artefacts (src/cli/simulate_artefact_options.h)
 };
 
 void DeclareSimulateOptions(CLI::App* command, SimulateArguments* arguments);

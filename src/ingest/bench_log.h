@@ -21,6 +21,13 @@ struct ColumnSource {
   long column = 0;     // 1-based
 };
 
+// Readings of one channel set aside as isolated outliers (src/ingest/outliers.h),
+// by the file line of their row; their values in the log are the repaired ones.
+struct SetAside {
+  units::Quantity quantity;
+  std::vector<long> lines;
+};
+
 struct BenchLog {
   std::string path;
   std::vector<double> time_s;
@@ -35,6 +42,7 @@ struct BenchLog {
   std::vector<long> line_of_row;                             // 1-based file line of each row
   std::vector<std::string> header_cells;                     // every header cell as written, read or not
   long header_line = 0;                                      // 1-based file line of the header row
+  std::vector<SetAside> set_aside;                           // outliers repaired, per channel
 
   std::size_t size() const { return time_s.size(); }
   bool Has(units::Quantity quantity) const;

@@ -10,6 +10,7 @@
 #include <utility>
 
 #include "src/ingest/encoder_speed.h"
+#include "src/ingest/noise_level.h"
 #include "src/ingest/segmentation.h"
 
 namespace coilspin {
@@ -35,6 +36,13 @@ constexpr double kOffCurrentSigmas = 6.0;
 // The running current must be "well above" that: its median over the level
 // window at least twice the threshold, 12 σ_i (common practice).
 constexpr double kRunCurrentFactor = 2.0;
+// ... and the band never narrower than two reading steps of a quantised sensor
+// (a reading toggling between two codes is no current).
+constexpr double kOffCurrentSteps = 2.0;
+// The zero reading is the median of the log's last quarter; the coast's early
+// current, judged for braking, the median of its first quarter (common practice).
+constexpr std::size_t kZeroReadingDivisor = 4;
+constexpr std::size_t kEarlyCoastDivisor = 4;
 
 // ---- Power off from the voltage -----------------------------------------------
 
@@ -81,10 +89,6 @@ constexpr double kFallTimeMargin = 2.0;
 constexpr std::size_t kRestHoldSamples = 16;
 
 // ---- Warnings -------------------------------------------------------------------
-
-// White noise alone gives an RMS of σ (±1/√(2n) relative); 3 σ is a current,
-// not noise (statistics: distribution of the sample RMS).
-constexpr double kCoastCurrentSigmas = 3.0;
 // The speed at the end of the log: the median of its last 5 samples (a spike of
 // up to 2 samples cannot move it; order statistics).
 constexpr std::size_t kEndSamples = 5;
@@ -98,17 +102,6 @@ double RoundingFloor(const std::vector<double>& x) {
   double magnitude = 0.0;
   for (double value : x) magnitude = std::max(magnitude, std::abs(value));
   return kRoundingUlps * std::numeric_limits<double>::epsilon() * magnitude;
-}
-
-// σ from MAD of second differences: a ramp (a coast, a decaying back-EMF) adds
-// a constant to first differences but nearly nothing to second ones.
-double NoiseFromSecondDifferences(const std::vector<double>& x) {
-  if (x.size() < 3) return 0.0;
-  std::vector<double> second(x.size() - 2);
-  for (std::size_t k = 0; k + 2 < x.size(); ++k) second[k] = x[k + 2] - 2.0 * x[k + 1] + x[k];
-  const double center = Median(second);
-  for (double& d : second) d = std::abs(d - center);
-  return Median(std::move(second)) / (kNormalMadPerSigma * kSecondDifferenceSigmaPerSigma);
 }
 
 // The smallest k in [lo, hi) with t_k ≥ time; hi when there is none.
@@ -177,6 +170,7 @@ struct SpeedView {
   std::size_t level_begin = 0;  // the level window [level_begin, level_end)
   std::size_t level_end = 0;
   std::size_t departure = 0;    // first sample of the fall below P − band
+  bool starts_in_coast = false; // no run level: the log starts while the shaft already slows
 };
 
 // [begin, end) from `begin` on while u ≥ floor_level, kLineMinSamples to kLineMaxSamples long.
@@ -207,7 +201,7 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   view.forward.resize(n);
   for (std::size_t k = 0; k < n; ++k) view.forward[k] = view.direction * speed_rad_s[k];
   const std::vector<double>& u = view.forward;
-  const double sigma = speed_sigma_rad_s ? *speed_sigma_rad_s : NoiseFromSecondDifferences(u);
+  const double sigma = speed_sigma_rad_s ? *speed_sigma_rad_s : EstimateChannelNoise(u).sigma;
   view.sigma = std::max(sigma, RoundingFloor(u));
   view.band = kSpeedBandSigmas * view.sigma;
 
@@ -233,9 +227,22 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   const std::size_t fall_end = ForwardWhileAbove(u, coarse, coarse_level - allowance - view.depth);
   const std::optional<Line> fall = FitLine(time_s, u, coarse, fall_end);
   if (!fall || !(fall->slope_per_s < 0.0)) return std::nullopt;
-  const double fall_time_s = kFallTimeMargin * allowance / -fall->slope_per_s;
-  view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - fall_time_s, 0, coarse);
-  if (view.level_end < kMinRunSamples) return std::nullopt;
+  const double fall_time_s = allowance / -fall->slope_per_s;
+  view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - kFallTimeMargin * fall_time_s, 0, coarse);
+  // A slow coast after a short run: the margin reaches back past the run's start, while the
+  // fall time itself (already an over-estimate, above) still leaves a run window.
+  if (view.level_end < kMinRunSamples) view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - fall_time_s, 0, coarse);
+  if (view.level_end < kMinRunSamples) {
+    // No run before the fall: the logger was started after the supply was cut. The
+    // shaft must already be slowing over the first samples (a straight line through
+    // them falls by more than the noise band), else this is no coast.
+    const std::optional<Line> start = FitLine(time_s, u, 0, std::min(n, kLineMaxSamples));
+    if (!start || !(-start->slope_per_s * (time_s[std::min(n, kLineMaxSamples) - 1] - time_s[0]) > view.band))
+      return std::nullopt;
+    view.starts_in_coast = true;
+    view.run_level = u[0];
+    return view;
+  }
   view.level_begin = view.level_end - std::min(kLevelSamples, view.level_end);
   view.run_level = MedianOf(u, view.level_begin, view.level_end);
   std::size_t departure = coarse;
@@ -299,13 +306,29 @@ bool AtRunLevel(const SpeedView& view, std::size_t k) {
   return MedianOf(view.forward, k - std::min(kLevelSamples, k), k) >= view.run_level - view.band;
 }
 
-// Route 1: the first stretch of kMinCoastSamples or more with |i| ≤ threshold
-// (ended only by two samples above it), after a running current well above it.
+// The noise band of the current around its zero reading: 6 σ (marginal, coloured
+// noise included, noise_level.h), and never less than two reading steps.
+double CurrentBand(const std::vector<double>& current_A) {
+  const ChannelNoise noise = EstimateChannelNoise(current_A);
+  return std::max({kOffCurrentSigmas * noise.sigma, kOffCurrentSteps * noise.step, RoundingFloor(current_A)});
+}
+
+// What the current sensor reads at zero current: the median of the log's last
+// quarter (one coast per log, so the log ends coasting or at rest). A sensor's
+// zero offset is not a current: judged against this, an offset of a few tenths of
+// a per cent of full scale no longer hides the power-off or reads as braking.
+double ZeroReading(const std::vector<double>& current_A) {
+  return MedianOf(current_A, current_A.size() - current_A.size() / kZeroReadingDivisor, current_A.size());
+}
+
+// Route 1: the first stretch of kMinCoastSamples or more within the band of the
+// zero reading (ended only by two samples outside it), after a running current
+// well outside it.
 std::optional<std::size_t> OffFromCurrent(const std::vector<double>& current_A, const SpeedView& view) {
   const std::size_t n = current_A.size();
-  const double sigma = std::max(NoiseFromDifferences(current_A), RoundingFloor(current_A));
-  const double threshold = kOffCurrentSigmas * sigma;
-  const auto above = [&](std::size_t k) { return std::abs(current_A[k]) > threshold; };
+  const double threshold = CurrentBand(current_A);
+  const double zero = ZeroReading(current_A);
+  const auto above = [&](std::size_t k) { return std::abs(current_A[k] - zero) > threshold; };
   std::size_t k = 0;
   while (k < n) {
     if (above(k)) {
@@ -317,7 +340,7 @@ std::optional<std::size_t> OffFromCurrent(const std::vector<double>& current_A, 
     if (k - begin < kMinCoastSamples || begin < kMinRunSamples) continue;
     std::vector<double> running;
     for (std::size_t j = begin - std::min(kLevelSamples, begin); j < begin; ++j)
-      running.push_back(std::abs(current_A[j]));
+      running.push_back(std::abs(current_A[j] - zero));
     if (Median(std::move(running)) > kRunCurrentFactor * threshold && AtRunLevel(view, begin)) return begin;
   }
   return std::nullopt;
@@ -333,7 +356,7 @@ std::optional<std::size_t> OffFromVoltage(const std::vector<double>& time_s, con
   const double sign = run_voltage > 0.0 ? 1.0 : -1.0;
   std::vector<double> w(n);
   for (std::size_t k = 0; k < n; ++k) w[k] = sign * voltage_V[k];
-  const double sigma = std::max(NoiseFromSecondDifferences(w), RoundingFloor(w));
+  const double sigma = std::max(EstimateChannelNoise(w).sigma, RoundingFloor(w));
   const double threshold = kVoltageJumpSigmas * kDifferenceSigmaPerSigma * sigma;
   std::optional<std::size_t> best;
   double best_jump = -threshold;
@@ -367,6 +390,8 @@ std::string_view PowerOffEvidenceText(PowerOffEvidence evidence) {
       return "voltage collapsed to the back-EMF";
     case PowerOffEvidence::kSpeedFell:
       return "speed began to fall";
+    case PowerOffEvidence::kStartsCoasting:
+      return "the log starts during the coast";
   }
   return "";
 }
@@ -389,8 +414,14 @@ std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<dou
 
   CoastSegment coast;
   std::optional<std::size_t> off;
-  if (!log.current_A.empty()) off = OffFromCurrent(log.current_A, *view);
-  coast.evidence = PowerOffEvidence::kCurrentFell;
+  if (view->starts_in_coast) {
+    off = 0;
+    coast.evidence = PowerOffEvidence::kStartsCoasting;
+  }
+  if (!off && !log.current_A.empty()) {
+    off = OffFromCurrent(log.current_A, *view);
+    coast.evidence = PowerOffEvidence::kCurrentFell;
+  }
   if (!off && !log.voltage_V.empty()) {
     off = OffFromVoltage(log.time_s, log.voltage_V, *view);
     coast.evidence = PowerOffEvidence::kVoltageCollapsed;
@@ -411,23 +442,28 @@ std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<dou
                                     : MedianOf(view->forward, coast.power_off - level, coast.power_off));
   coast.speed_sigma_rad_s = view->sigma;
   if (!log.current_A.empty() && coast.rest > coast.power_off) {
+    coast.zero_current_A = ZeroReading(log.current_A);
     double sum = 0.0;
     double squares = 0.0;
     for (std::size_t k = coast.power_off; k < coast.rest; ++k) {
-      sum += log.current_A[k];
-      squares += log.current_A[k] * log.current_A[k];
+      sum += log.current_A[k] - coast.zero_current_A;
+      squares += (log.current_A[k] - coast.zero_current_A) * (log.current_A[k] - coast.zero_current_A);
     }
     const auto count = static_cast<double>(coast.size());
     coast.off_current_mean_A = sum / count;
     coast.off_current_rms_A = std::sqrt(squares / count);
+    // The start of the coast against its zero reading: a braking current follows the back-EMF,
+    // largest at power off; an offset is the same at every speed.
+    const std::size_t early_end = coast.power_off + std::max<std::size_t>(1, coast.size() / kEarlyCoastDivisor);
+    coast.early_current_A = MedianOf(log.current_A, coast.power_off, early_end) - coast.zero_current_A;
+    coast.current_band_A = CurrentBand(log.current_A);
   }
   return coast;
 }
 
 bool CurrentFlowsDuringCoast(const BenchLog& log, const CoastSegment& coast) {
   if (log.current_A.empty() || coast.rest <= coast.power_off) return false;
-  const double sigma = std::max(NoiseFromDifferences(log.current_A), RoundingFloor(log.current_A));
-  return coast.off_current_rms_A > kCoastCurrentSigmas * sigma;
+  return std::abs(coast.early_current_A) > coast.current_band_A;
 }
 
 bool StopsLongBeforeRest(const std::vector<double>& speed_rad_s, const CoastSegment& coast, double fraction) {
@@ -442,10 +478,10 @@ CoastWarnings CheckCoast(const BenchLog& log, const std::vector<double>& speed_r
   CoastWarnings warnings;
   warnings.current_flows = CurrentFlowsDuringCoast(log, coast);
   if (warnings.current_flows) {
-    const double sigma = std::max(NoiseFromDifferences(log.current_A), RoundingFloor(log.current_A));
-    warnings.messages.push_back("current flows during the coast (mean " + Format("%.3g", coast.off_current_mean_A) +
-                                " A, RMS " + Format("%.3g", coast.off_current_rms_A) + " A, noise sigma " +
-                                Format("%.3g", sigma) +
+    warnings.messages.push_back("current flows during the coast (" + Format("%.3g", coast.early_current_A) +
+                                " A in its first part, mean " + Format("%.3g", coast.off_current_mean_A) +
+                                " A, against the sensor's reading at rest " + Format("%.3g", coast.zero_current_A) +
+                                " A and a noise band of " + Format("%.3g", coast.current_band_A) +
                                 " A): the terminals are not open, a driver or a diode brakes the rotor, and "
                                 "B/J and Tc/J include that braking");
   }

@@ -9,9 +9,10 @@
 // Power off, from the first evidence that holds (each candidate must lie where
 // the speed is still at its run level and before it falls):
 //  1. current logged: the first sample of a stretch of at least 20 samples with
-//     |i| ≤ 6 σ_i (σ_i from first differences; a lone sample above does not end
-//     it), after a running current whose median is above twice that level
-//     ("current fell to zero");
+//     |i − i_z| ≤ 6 σ_i (σ_i the marginal noise, noise_level.h, and at least two
+//     reading steps; i_z the sensor's zero reading, the median of the log's last
+//     quarter; a lone sample outside does not end it), after a running current
+//     whose median departs from i_z by more than twice that ("current fell to zero");
 //  2. voltage logged: the largest one-sample drop of v beyond 8·√2 σ_v whose
 //     5-sample medians show a lasting drop, after which v follows the speed
 //     (correlation ≥ 0.9 over the coast, v = Ke·ω) ("voltage collapsed to the
@@ -20,14 +21,18 @@
 //     first with a 2 % drift allowance, then by 4 σ_ω from the median of the
 //     32 run samples before it), moved back to where a straight line through
 //     the first samples of the fall meets the run level ("speed began to fall").
+//  4. no run level at all (the logger started after the supply was cut), the
+//     speed falling over the first samples by more than its noise band: the
+//     coast starts at the first sample ("the log starts during the coast").
 // Rest: the first sample from which |ω| stays within 4 σ_ω for 16 samples (a
 // lone sample outside does not break that), moved on to where a straight line
 // through the approach meets 0 (by at most those 16 samples: an exponential
 // tail never does). The line is fitted twice: first through the samples above
 // the band, then through every sample before its crossing, since samples
 // chosen for lying above the band sit high.
-// σ of speed and voltage comes from second differences, which a ramp does not
-// inflate (a coast is a ramp); a derived speed should pass its own σ.
+// σ of speed, voltage and current is the marginal noise of noise_level.h (second
+// differences at doubling lags: a ramp does not inflate them and coloured noise is
+// counted in full); a derived speed should pass its own σ.
 //
 // Assumptions: one coast per log, from a steady run; the precision of route 3
 // is about σ_ω/|dω/dt| in time, that of routes 1 and 2 one sample.
@@ -47,9 +52,10 @@ namespace coilspin {
 // B and Tc are then hard to separate (common practice).
 inline constexpr double kStopsLongBeforeRestFraction = 0.2;
 
-enum class PowerOffEvidence { kCurrentFell, kVoltageCollapsed, kSpeedFell };
+enum class PowerOffEvidence { kCurrentFell, kVoltageCollapsed, kSpeedFell, kStartsCoasting };
 
-// "current fell to zero", "voltage collapsed to the back-EMF", "speed began to fall".
+// "current fell to zero", "voltage collapsed to the back-EMF", "speed began to fall",
+// "the log starts during the coast".
 std::string_view PowerOffEvidenceText(PowerOffEvidence evidence);
 
 struct CoastSegment {
@@ -61,8 +67,13 @@ struct CoastSegment {
   double direction = 1.0;           // sgn ω during the run
   double run_speed_rad_s = 0.0;     // speed level just before power off (signed)
   double speed_sigma_rad_s = 0.0;   // noise σ of the speed used for the bands
-  double off_current_mean_A = 0.0;  // mean i over [power_off, rest); 0 when current is not logged
-  double off_current_rms_A = 0.0;   // √(mean i²) over [power_off, rest); 0 when current is not logged
+  // Current (when logged), against the sensor's reading at zero current (the median
+  // of the log's last quarter: its zero offset):
+  double zero_current_A = 0.0;      // that reading
+  double off_current_mean_A = 0.0;  // mean i − zero over [power_off, rest)
+  double off_current_rms_A = 0.0;   // √(mean (i − zero)²) over [power_off, rest)
+  double early_current_A = 0.0;     // median i − zero over the first quarter of the coast
+  double current_band_A = 0.0;      // the noise band: 6 σ (marginal) and at least two reading steps
   std::size_t size() const { return rest - power_off; }
 };
 
@@ -77,10 +88,11 @@ std::optional<CoastSegment> FindCoast(const BenchLog& log);
 std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<double>& speed_rad_s,
                                       std::optional<double> speed_sigma_rad_s = std::nullopt);
 
-// Current during the coast: its RMS over [power_off, rest) exceeds 3 noise σ
-// (σ from first differences). RMS² = mean² + variance, so a steady braking
-// current (a diode, a driver holding the bridge) and a chopped one both count.
-// False when the log has no current.
+// Current during the coast: its median over the coast's first quarter departs
+// from the sensor's zero reading by more than the noise band. A braking current
+// (a diode, a driver holding the bridge) follows the back-EMF and is largest at
+// power off; a sensor's zero offset is the same at every speed and is not
+// braking. False when the log has no current.
 bool CurrentFlowsDuringCoast(const BenchLog& log, const CoastSegment& coast);
 
 // The log ends before rest while |ω| (median of its last 5 samples) is still

@@ -6,7 +6,7 @@
 namespace coilspin {
 namespace {
 
-constexpr std::array<std::pair<InputErrorKind, std::string_view>, 20> kKindNames = {{
+constexpr std::array<std::pair<InputErrorKind, std::string_view>, 22> kKindNames = {{
     {InputErrorKind::kCannotOpen, "cannot-open"},
     {InputErrorKind::kEmptyFile, "empty-file"},
     {InputErrorKind::kBinaryFile, "binary-file"},
@@ -27,6 +27,8 @@ constexpr std::array<std::pair<InputErrorKind, std::string_view>, 20> kKindNames
     {InputErrorKind::kBadOutputPath, "bad-output-path"},
     {InputErrorKind::kTooLarge, "too-large"},
     {InputErrorKind::kOutOfRange, "out-of-range"},
+    {InputErrorKind::kBadResultFile, "bad-result-file"},
+    {InputErrorKind::kBadDatasheet, "bad-datasheet"},
 }};
 
 // "file:line:column: message"; the line is left out when 0, the column when it

@@ -1,5 +1,6 @@
 #include "src/ingest/segmentation.h"
 
+#include "src/ingest/noise_level.h"
 #include "src/ingest/small_text_and_statistics.h"
 
 #include <algorithm>
@@ -27,6 +28,10 @@ constexpr double kRoundingUlps = 1024.0;
 // supply that slews); they are trimmed from its end while they lie more than
 // 4 σ from the level's mean (a 6·10⁻⁵ chance for a Gaussian sample of the level).
 constexpr double kLevelEdgeSigmas = 4.0;
+
+// A level change on a quantised channel must span more than two reading steps:
+// noise toggling a reading between two neighbouring steps is not a change of level.
+constexpr double kLevelChangeSteps = 2.0;
 
 // Step onset: the initial level is the median of the first 1/20 of the record,
 // but of no more than its first 8 samples, so that a short pre-trigger part
@@ -108,10 +113,11 @@ std::vector<Plateau> FindPlateaus(const std::vector<double>& level,
   const auto [lowest, highest] = std::minmax_element(level.begin(), level.end());
   const double range = *highest - *lowest;
   const double magnitude = std::max(std::abs(*lowest), std::abs(*highest));
-  const double sigma = NoiseFromDifferences(level);
+  const ChannelNoise noise = EstimateChannelNoise(level);  // coloured and quantised noise (noise_level.h)
+  const double sigma = noise.sigma;
   const double rounding = kRoundingUlps * std::numeric_limits<double>::epsilon() * magnitude;
-  const double threshold =
-      std::max({options.threshold_sigmas * sigma, options.min_relative_step * range, rounding});
+  const double threshold = std::max({options.threshold_sigmas * sigma, options.min_relative_step * range, rounding,
+                                     kLevelChangeSteps * noise.step});
   const double edge_band = std::max(kLevelEdgeSigmas * sigma, rounding);
 
   std::vector<Plateau> plateaus;
@@ -143,7 +149,7 @@ std::optional<std::size_t> FindStepOnset(const std::vector<double>& signal) {
   double amplitude = 0.0;  // the largest excursion held for two samples, so a lone spike is no step
   for (std::size_t k = 0; k + 1 < n; ++k)
     amplitude = std::max(amplitude, std::min(excursion(k), excursion(k + 1)));
-  const double sigma = NoiseFromDifferences(signal);
+  const double sigma = EstimateChannelNoise(signal).sigma;
   if (amplitude == 0.0 || amplitude <= kStepMinimumSigmas * sigma) return std::nullopt;
   if (!std::isfinite(amplitude) || !std::isfinite(sigma)) return std::nullopt;  // beyond the range of a double
 

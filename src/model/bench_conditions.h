@@ -2,10 +2,15 @@
 // How a simulated bench differs from an ideal one: supply internal resistance,
 // measurement noise, ADC quantisation, winding heating, and how the shaft is
 // read (an encoder, a gearbox between the motor and the sensor). Noise levels
-// are standard deviations (σ) of white Gaussian noise added to each logged
-// channel; speed and position are logged at the output of the gearbox.
+// are standard deviations (σ) of the Gaussian noise added to each logged
+// channel (white unless the channel's sensor sets a lag-1 correlation); speed
+// and position are logged at the output of the gearbox. A real rig's other
+// artefacts (src/model/bench_artefacts.h, docs/bench-artefacts.md) are all off
+// by default.
 
 #include <cstdint>
+
+#include "src/model/bench_artefacts.h"
 
 namespace coilspin::model {
 
@@ -26,6 +31,18 @@ struct BenchConditions {
   double encoder_start_phase = 0.0;
   double gear_ratio = 1.0;               // motor turns per output turn: logged ω_out = ω/N, θ_out = θ/N
   std::uint64_t seed = 1;              // noise is reproducible for a given seed
+  // A real rig (src/model/bench_artefacts.h): each sensor's coloured noise,
+  // offset, dropouts and spikes (in the channel's unit, the speed at the logged shaft) ...
+  SensorArtefacts voltage_sensor;
+  SensorArtefacts current_sensor;
+  SensorArtefacts speed_sensor;
+  SensorArtefacts torque_sensor;
+  double speed_lsb_rad_s = 0.0;          // ADC step of the speed channel; 0 = not quantised
+  double torque_lsb_N_m = 0.0;           // ADC step of the torque channel; 0 = not quantised
+  // ... commutation ripple and mechanical discrepancy (free shaft), winding warm-up (every kind).
+  CommutationRipple ripple;
+  WindingWarmUp warm_up;
+  MechanicalDiscrepancy discrepancy;
 };
 
 }  // namespace coilspin::model

@@ -53,6 +53,22 @@ double NoLoadSpeed(const ParameterValues& p, double voltage_V) {
   return (kt * Drive(p, voltage_V) / r - Get(p, "coulomb_friction")) / (kt * ke / r + Get(p, "viscous_friction"));
 }
 
+std::string DerivedNote(const std::string& key) {
+  if (key == "stall_torque") return "without friction: Kt*(V - Vb)/R";
+  if (key == "stall_torque_with_friction") return "with friction: Kt*(V - Vb)/R - Tc, the torque-speed line at zero speed";
+  return "";
+}
+
+std::vector<std::string> DerivedKeys() {
+  ParameterValues all;
+  for (const char* key : {"resistance", "inductance", "back_emf_constant", "torque_constant", "inertia",
+                          "viscous_friction", "coulomb_friction", "brush_drop"})
+    all[key] = 1.0;  // any values: only which formulas apply matters here
+  std::vector<std::string> keys;
+  for (const auto& formula : DerivedFormulas(all, 1.0)) keys.push_back(formula.key);
+  return keys;
+}
+
 std::vector<DerivedFormula> DerivedFormulas(const ParameterValues& available, double voltage_V) {
   const double v = voltage_V;
   std::vector<DerivedFormula> all = {
@@ -60,6 +76,10 @@ std::vector<DerivedFormula> DerivedFormulas(const ParameterValues& available, do
        [v](const ParameterValues& p) { return Drive(p, v) / Get(p, "resistance"); }},
       {"stall_torque", "T_stall", "N*m", {"resistance", "torque_constant"}, true,
        [v](const ParameterValues& p) { return Get(p, "torque_constant") * Drive(p, v) / Get(p, "resistance"); }},
+      {"stall_torque_with_friction", "T_stall_f", "N*m", {"resistance", "torque_constant", "coulomb_friction"}, true,
+       [v](const ParameterValues& p) {
+         return Get(p, "torque_constant") * Drive(p, v) / Get(p, "resistance") - Get(p, "coulomb_friction");
+       }},
       {"no_load_speed_ideal", "w_nl0", "rad/s", {"back_emf_constant"}, true,
        [v](const ParameterValues& p) { return Drive(p, v) / Get(p, "back_emf_constant"); }},
       {"no_load_speed", "w_nl", "rad/s",
@@ -78,9 +98,11 @@ std::vector<DerivedFormula> DerivedFormulas(const ParameterValues& available, do
        }},
       {"speed_constant", "Kv", "rpm/V", {"back_emf_constant"}, false,
        [](const ParameterValues& p) { return units::kRpmPerRadPerSecond / Get(p, "back_emf_constant"); }},
+      {"speed_constant_si", "Kv_SI", "rad/(s*V)", {"back_emf_constant"}, false,
+       [](const ParameterValues& p) { return 1.0 / Get(p, "back_emf_constant"); }},
       {"motor_constant", "Km", "N*m/sqrt(W)", {"resistance", "torque_constant"}, false,
        [](const ParameterValues& p) { return Get(p, "torque_constant") / std::sqrt(Get(p, "resistance")); }},
-      {"speed_torque_gradient", "dw/dT", "rad/(s*N*m)", {"resistance", "torque_constant", "back_emf_constant"}, false,
+      {"speed_torque_slope", "dw/dT", "rad/(s*N*m)", {"resistance", "torque_constant", "back_emf_constant"}, false,
        [](const ParameterValues& p) {
          return Get(p, "resistance") / (Get(p, "torque_constant") * Get(p, "back_emf_constant"));
        }},

@@ -11,9 +11,12 @@
 //
 // Logged at each t_k, exactly: v_k (src/model/free_shaft_dynamics.h:
 // V_s − R_s·i, or Ke·ω with the terminals open), i_k, and the shaft channels
-// (src/model/shaft_channels.h); then noise (src/model/bench_noise.h). R is
-// taken at the bench's winding temperature by the copper law
-// (docs/methods.md §7) and held there for the run.
+// (src/model/shaft_channels.h); then commutation ripple on i_k (and on v_k
+// where the back-EMF drives the terminals: open, or V_s = 0), and the sensors
+// (src/model/bench_noise.h). R is taken at the bench's winding temperature by
+// the copper law (docs/methods.md §7) and held there for the run, or follows
+// the winding's warm-up (src/model/winding_warm_up.h). The rig's drag and
+// wandering friction, when set, act on the shaft (docs/bench-artefacts.md).
 
 #include <cstddef>
 #include <string>
@@ -37,13 +40,13 @@ struct FreeShaftChannels {
   bool voltage = true;
   bool current = true;
   ShaftChannels shaft = ShaftChannels::kSpeed;
-  bool temperature = false;  // the winding temperature, constant
+  bool temperature = false;  // the winding temperature (constant unless it warms up)
 };
 
 // Throws std::invalid_argument (its message starting with `simulation`) for a
 // sample period ≤ 0, Ke ≤ 0 or Kt ≤ 0 (a free shaft without them has no
-// no-load point), parameters the integrator rejects, and bad noise or shaft
-// readout settings.
+// no-load point), parameters the integrator rejects, and bad noise, artefact or
+// shaft readout settings.
 SampledLog RunFreeShaftBench(const MotorParameters& motor, const std::vector<FreeShaftSegment>& segments,
                              double sample_period_s, const FreeShaftChannels& channels,
                              const BenchConditions& bench, const std::string& simulation);

@@ -45,6 +45,7 @@ void Validate(const MotorParameters& motor, const FreeShaftInput& input, double 
   Require(NonNegative(motor.viscous_friction_N_m_s_per_rad) && NonNegative(motor.coulomb_friction_N_m),
           "B and Tc must be >= 0");
   Require(NonNegative(motor.brush_drop_V), "Vb must be >= 0");
+  Require(NonNegative(input.drag_N_m_s2_per_rad2), "the drag coefficient must be >= 0");
   Require(std::isfinite(input.load_torque_N_m), "the load torque must be finite");
   if (input.open_circuit) return;
   Require(std::isfinite(input.supply_V), "the supply voltage must be finite");
@@ -113,8 +114,9 @@ class FreeShaftModel {
                        motor_.inductance_H;
     }
     if (regime.speed != Branch::kHeld) {
-      // J·dω/dt = Kt·i − B·ω − Tc·sgn(ω) − τ_load
+      // J·dω/dt = Kt·i − B·ω − c·ω·|ω| − Tc·sgn(ω) − τ_load
       rate.speed_rad_s = (DriveTorque_N_m(s) - motor_.viscous_friction_N_m_s_per_rad * s.speed_rad_s -
+                          input_.drag_N_m_s2_per_rad2 * s.speed_rad_s * std::abs(s.speed_rad_s) -
                           motor_.coulomb_friction_N_m * SignOf(regime.speed)) /
                          motor_.inertia_kg_m2;
     }
@@ -185,9 +187,11 @@ class FreeShaftModel {
 
 }  // namespace
 
-long FreeShaftSubSteps(const MotorParameters& motor, const FreeShaftInput& input, double duration_s) {
+long FreeShaftSubSteps(const MotorParameters& motor, const FreeShaftInput& input, double duration_s,
+                       double speed_rad_s) {
   Validate(motor, input, duration_s);
-  const double fastest_s = TimeConstantsOf(motor, input).fastest_s;
+  const double fastest_s =
+      std::min(TimeConstantsOf(motor, input).fastest_s, DragTimeConstant_s(motor, input, speed_rad_s));
   const double wanted = std::ceil(duration_s / fastest_s * kRungeKuttaStepsPerTimeConstant);
   if (!(wanted <= static_cast<double>(kMaxSubStepsPerCall))) {
     std::ostringstream what;
@@ -200,7 +204,7 @@ long FreeShaftSubSteps(const MotorParameters& motor, const FreeShaftInput& input
 
 FreeShaftState AdvanceFreeShaft(const MotorParameters& motor, const FreeShaftInput& input,
                                 const FreeShaftState& start, double duration_s) {
-  const long sub_steps = FreeShaftSubSteps(motor, input, duration_s);
+  const long sub_steps = FreeShaftSubSteps(motor, input, duration_s, start.speed_rad_s);
   FreeShaftState state = start;
   if (input.open_circuit) state.current_A = 0.0;  // an ideal switch: i = 0 at once
   const FreeShaftModel model(motor, input);

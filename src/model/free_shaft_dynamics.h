@@ -1,8 +1,11 @@
 #pragma once
 // The motor with its shaft free to turn (docs/methods.md §1), state (i, ω, θ):
 //     L·di/dt = V_s − (R + R_s)·i − Ke·ω − Vb·sgn(i)
-//     J·dω/dt = Kt·i − B·ω − Tc·sgn(ω) − τ_load
+//     J·dω/dt = Kt·i − B·ω − c·ω·|ω| − Tc·sgn(ω) − τ_load
 //     dθ/dt  = ω
+// c·ω·|ω| is a speed-squared (aerodynamic) drag of the rig, not part of
+// coilspin's model (docs/bench-artefacts.md); c = 0 unless a simulated bench
+// asks for it. It vanishes at ω = 0, so it leaves the stiction rule alone.
 // The terminals see either a source of open-circuit voltage V_s behind a
 // resistance R_s (terminal v = V_s − R_s·i; a braking resistor R_brake across
 // the terminals is V_s = 0, R_s = R_brake), or nothing (open circuit: i = 0,
@@ -21,12 +24,13 @@
 // Vb = 0 (or Tc = 0) removes the corresponding sign term and its rule.
 //
 // Integration. Between switches each regime is a linear ODE with constant
-// input, integrated by the classical fourth-order Runge–Kutta method in
-// fixed sub-steps of h = duration/n, with n chosen so that h is at most
-// 1/kRungeKuttaStepsPerTimeConstant of the fastest time constant: the
-// electrical L/(R + R_s), the mechanical J·(R + R_s)/(Kt·Ke), the viscous
-// J/B, and 1/|λ| for the eigenvalues λ of the (i, ω) system (which can be
-// faster than all three when the motor is underdamped). A switch is exact to
+// input (plus the drag, when c > 0), integrated by the classical fourth-order
+// Runge–Kutta method in fixed sub-steps of h = duration/n, with n chosen so
+// that h is at most 1/kRungeKuttaStepsPerTimeConstant of the fastest time
+// constant: the electrical L/(R + R_s), the mechanical J·(R + R_s)/(Kt·Ke),
+// the viscous J/B, 1/|λ| for the eigenvalues λ of the (i, ω) system (which can
+// be faster than all three when the motor is underdamped), and the drag's
+// J/(2c·|ω|) at the speed the call starts from. A switch is exact to
 // the integrator: when a sub-step would carry i or ω through zero (or free a
 // held current or rotor), its length is bisected to kEventTimeRelativeTolerance
 // of a sub-step, the state is taken at the crossing with that variable set to
@@ -34,7 +38,7 @@
 //
 // Throws std::invalid_argument for parameters the model cannot integrate
 // (L ≤ 0 with a source connected, J ≤ 0, R + R_s ≤ 0, a negative Ke, Kt, B,
-// Tc or Vb, a negative duration) or a sub-step count above kMaxSubStepsPerCall
+// Tc, Vb or c, a negative duration) or a sub-step count above kMaxSubStepsPerCall
 // (the time constants are far shorter than the duration: call more often).
 
 #include "src/model/motor_parameters.h"
@@ -61,15 +65,17 @@ struct FreeShaftInput {
   double supply_V = 0.0;               // V_s
   double supply_resistance_ohm = 0.0;  // R_s (or R_brake with V_s = 0)
   double load_torque_N_m = 0.0;        // τ_load
+  double drag_N_m_s2_per_rad2 = 0.0;   // c of the drag c·ω·|ω|, ≥ 0
 };
 
 // The state `duration_s` later.
 FreeShaftState AdvanceFreeShaft(const MotorParameters& motor, const FreeShaftInput& input,
                                 const FreeShaftState& state, double duration_s);
 
-// The RK4 sub-steps AdvanceFreeShaft takes over `duration_s` (before any switch splits one).
+// The RK4 sub-steps AdvanceFreeShaft takes over `duration_s` (before any switch splits one),
+// starting from a shaft speed of `speed_rad_s` (which matters only with a drag).
 long FreeShaftSubSteps(const MotorParameters& motor, const FreeShaftInput& input,
-                       double duration_s);
+                       double duration_s, double speed_rad_s = 0.0);
 
 // Terminal voltage: V_s − R_s·i with a source, Ke·ω with the terminals open.
 double FreeShaftTerminalVoltage(const MotorParameters& motor, const FreeShaftInput& input,

@@ -45,4 +45,9 @@ FreeShaftTimeConstants TimeConstantsOf(const MotorParameters& motor, const FreeS
   return {TimeConstantOfRate(fastest_rate), TimeConstantOfRate(slowest_decay)};
 }
 
+double DragTimeConstant_s(const MotorParameters& motor, const FreeShaftInput& input, double speed_rad_s) {
+  // 1/τ = 2c·|ω|/J
+  return TimeConstantOfRate(2.0 * input.drag_N_m_s2_per_rad2 * std::abs(speed_rad_s) / motor.inertia_kg_m2);
+}
+
 }  // namespace coilspin::model

@@ -26,4 +26,9 @@ struct FreeShaftTimeConstants {
 // Expects validated parameters (L > 0 with a source, J > 0, R + R_s > 0).
 FreeShaftTimeConstants TimeConstantsOf(const MotorParameters& motor, const FreeShaftInput& input);
 
+// The drag's local time constant at speed ω, J/(2c·|ω|) (the drag c·ω·|ω|
+// linearised: d(c·ω·|ω|)/dω = 2c·|ω|); +∞ when c = 0 or ω = 0. Not part of
+// TimeConstantsOf, which describes the linear model the fitters use.
+double DragTimeConstant_s(const MotorParameters& motor, const FreeShaftInput& input, double speed_rad_s);
+
 }  // namespace coilspin::model

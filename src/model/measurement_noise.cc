@@ -1,7 +1,6 @@
 #include "src/model/measurement_noise.h"
 
 #include <cmath>
-#include <stdexcept>
 
 namespace coilspin::model {
 
@@ -46,16 +45,6 @@ double MeasurementNoise::StandardNormal() {
   spare_ = radius * std::sin(angle);
   has_spare_ = true;
   return radius * std::cos(angle);
-}
-
-void MeasurementNoise::Apply(std::vector<double>& channel, double sigma, double lsb) {
-  if (!(sigma >= 0.0) || !(lsb >= 0.0)) {
-    throw std::invalid_argument("measurement noise: sigma and lsb must be >= 0");
-  }
-  for (double& value : channel) {
-    const double noisy = sigma > 0.0 ? value + sigma * StandardNormal() : value;
-    value = Quantise(noisy, lsb);
-  }
 }
 
 }  // namespace coilspin::model

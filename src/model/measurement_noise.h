@@ -1,10 +1,11 @@
 #pragma once
-// Measurement noise and ADC quantisation of one logged channel.
+// The random numbers of a simulated bench, and ADC quantisation.
 //
 // The analogue signal x picks up white Gaussian noise before the converter
 // rounds it to its step (lsb):
 //     x_logged = q(x + σ·z),   z ~ N(0, 1) independent per sample,
 //     q(y) = lsb·round(y/lsb)   (q is the identity when lsb = 0).
+// (src/model/sensor_chain.h applies it, with a real sensor's other faults.)
 //
 // Reproducible: the deviates come from std::mt19937_64 seeded through
 // std::seed_seq (both specified exactly by the C++ standard) and the
@@ -15,7 +16,6 @@
 
 #include <cstdint>
 #include <random>
-#include <vector>
 
 namespace coilspin::model {
 
@@ -29,13 +29,11 @@ class MeasurementNoise {
   // One N(0, 1) deviate.
   double StandardNormal();
 
-  // channel[k] ← q(channel[k] + σ·z_k). Throws std::invalid_argument for σ < 0 or lsb < 0.
-  void Apply(std::vector<double>& channel, double sigma, double lsb);
-
- private:
-  // Uniform on (0, 1], from the top 53 bits of one engine output.
+  // Uniform on (0, 1], from the top 53 bits of one engine output: u ≤ p has
+  // probability p (to 2⁻⁵³) for p in [0, 1].
   double UniformOpenZero();
 
+ private:
   std::mt19937_64 engine_;
   bool has_spare_ = false;  // Box–Muller makes deviates in pairs
   double spare_ = 0.0;

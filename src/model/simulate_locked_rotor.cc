@@ -9,6 +9,7 @@
 #include "src/model/copper_resistance.h"
 #include "src/model/locked_rotor_circuit.h"
 #include "src/model/sample_plan.h"
+#include "src/model/winding_warm_up.h"
 
 namespace coilspin::model {
 
@@ -40,6 +41,19 @@ void AppendLevel(SupplySchedule& schedule, std::size_t samples, double supply_V,
   schedule.supply_V.insert(schedule.supply_V.end(), samples, supply_V);
   schedule.resistance_ohm.insert(schedule.resistance_ohm.end(), samples, resistance_ohm);
   schedule.temperature_degC.insert(schedule.temperature_degC.end(), samples, temperature_degC);
+}
+
+// The winding's warm-up on top of the schedule's temperatures: θ_k += ΔT·(1 − e^(−t_k/τ_th)),
+// R_k = R(θ_k) by the copper law.
+void AddWarmUp(const MotorParameters& motor, const BenchConditions& bench, double sample_period_s,
+               SupplySchedule& schedule) {
+  ValidateWarmUp(bench.warm_up);
+  if (!HasWarmUp(bench.warm_up)) return;
+  for (std::size_t k = 0; k < schedule.supply_V.size(); ++k) {
+    schedule.temperature_degC[k] += WarmUpRise_K(bench.warm_up, static_cast<double>(k) * sample_period_s);
+    schedule.resistance_ohm[k] = CopperResistanceAt(motor.resistance_ohm, bench.resistance_reference_temperature_degC,
+                                                    schedule.temperature_degC[k]);
+  }
 }
 
 LockedRotorCircuit CircuitAt(const MotorParameters& motor, const BenchConditions& bench,
@@ -103,6 +117,7 @@ SampledLog SimulateLockedRotorPlateaus(const MotorParameters& motor, const Plate
     Require(std::isfinite(motor.torque_constant_N_m_per_A) && motor.torque_constant_N_m_per_A > 0.0,
             "a torque column needs Kt > 0");
   }
+  AddWarmUp(motor, bench, plan.sample_period_s, schedule);
   constexpr double kAtRest_A = 0.0;
   SampledLog log =
       RunSchedule(motor, bench, schedule, plan.sample_period_s, kAtRest_A, plan.log_torque);
@@ -121,6 +136,7 @@ SampledLog SimulateLockedRotorStep(const MotorParameters& motor, const StepPlan&
   SupplySchedule schedule;
   AppendLevel(schedule, samples_before, plan.supply_before_V, resistance_ohm, temperature_degC);
   AppendLevel(schedule, samples_after, plan.supply_after_V, resistance_ohm, temperature_degC);
+  AddWarmUp(motor, bench, plan.sample_period_s, schedule);
   const double settled_before_A = SettledLockedRotorCurrent(
       CircuitAt(motor, bench, resistance_ohm), plan.supply_before_V);
   constexpr bool kNoTorque = false;

@@ -22,6 +22,13 @@
 // Plateaus start from rest (i = 0 at t = 0, the supply switched on to the first
 // level); plateau j is held at winding temperature θ_0 + j·heating_per_plateau_K.
 // The step starts from the current settled at supply_before_V, at θ_0.
+// A winding warm-up (BenchConditions::warm_up, src/model/winding_warm_up.h)
+// adds ΔT·(1 − e^(−t_k/τ_th)) to the temperature of sample period k, plateau
+// heating or not, and R follows it.
+//
+// Of a real rig's artefacts (src/model/bench_artefacts.h) the sensors' (on v,
+// i and τ) and the warm-up apply; commutation ripple does not (θ is constant)
+// and neither does the free shaft's mechanical discrepancy.
 //
 // Torque column (plateaus, on request): the shaft is held by a load cell, which
 // reads the torque the armature produces, τ = Kt·i (the rotor does not turn;

@@ -1,6 +1,7 @@
 #include "src/output/number_format.h"
 
 #include <algorithm>
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 
@@ -33,6 +34,18 @@ std::string FormatValue(double value, double std_error, int fallback_significant
     std::snprintf(buffer, sizeof buffer, "%.*e", std::max(0, significant - 1), value);
   }
   return buffer;
+}
+
+std::string ShortNumber(double value, int significant) {
+  char buffer[64];
+  std::snprintf(buffer, sizeof buffer, "%.*g", significant, value);
+  return buffer;
+}
+
+std::string ExactNumber(double value) {
+  char buffer[32];
+  const auto written = std::to_chars(buffer, buffer + sizeof buffer, value);
+  return std::string(buffer, written.ptr);
 }
 
 }  // namespace coilspin::output

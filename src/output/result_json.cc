@@ -1,6 +1,9 @@
 #include "src/output/result_json.h"
 
 #include <nlohmann/json.hpp>
+#include <regex>
+
+#include "src/result/parameter_covariance.h"
 
 namespace coilspin::output {
 namespace {
@@ -20,6 +23,7 @@ Json QuantityJson(const QuantityEstimate& q) {
   if (q.at_voltage_V) j["at_voltage"] = *q.at_voltage_V;
   if (q.at_temperature_degC) j["at_temperature_degC"] = *q.at_temperature_degC;
   if (!q.note.empty()) j["note"] = q.note;
+  if (!q.assumes.empty()) j["assumes"] = q.assumes;
   return j;
 }
 
@@ -49,13 +53,25 @@ Json TestJson(const TestSummary& t) {
   Json share = Json::object();
   for (const auto& [key, value] : t.information_share) share[key] = value;
   j["information_share"] = share;
+  Json set_aside = Json::object();
+  for (const auto& [channel, lines] : t.set_aside) set_aside[channel] = {{"count", lines.size()}, {"lines", lines}};
+  j["set_aside"] = set_aside;
+  j["contributed"] = t.contributed;
   j["warnings"] = t.warnings;
   return j;
 }
 
-}  // namespace
+Json MatrixJson(const result::NamedMatrix& m) { return {{"names", m.names}, {"matrix", m.matrix}}; }
 
-std::string ResultJson(const MotorEstimate& e) {
+// A setting is held as text; one that reads as a JSON number (RFC 8259, 6) is
+// written as that number.
+Json SettingJson(const std::string& text) {
+  static const std::regex number(R"(-?(0|[1-9][0-9]*)(\.[0-9]+)?([eE][+-]?[0-9]+)?)");
+  if (std::regex_match(text, number)) return Json::parse(text);
+  return text;
+}
+
+std::string Document(const MotorEstimate& e, const Json* verification) {
   Json j;
   j["format"] = kResultFormat;
   if (!e.motor_label.empty()) j["motor"] = {{"label", e.motor_label}};
@@ -72,8 +88,10 @@ std::string ResultJson(const MotorEstimate& e) {
   for (const auto& [key, reason] : e.not_identified) missing[key] = reason;
   j["not_identified"] = missing;
   j["ratios"] = QuantitiesJson(e.ratios);
-  j["correlation"] = {{"names", e.correlation_names}, {"matrix", e.correlation}};
+  j["covariance"] = MatrixJson(result::FullCovariance(e));
+  j["correlation"] = MatrixJson(result::FullCorrelation(e));
   j["derived"] = QuantitiesJson(e.derived);
+  j["sensor_offsets"] = QuantitiesJson(e.sensor_offsets);
   if (e.torque_speed) {
     Json points = Json::array();
     for (const auto& p : e.torque_speed->points)
@@ -103,10 +121,17 @@ std::string ResultJson(const MotorEstimate& e) {
     solver.push_back({{"converged", s.converged}, {"termination", s.termination}, {"iterations", s.iterations},
                       {"initial_cost", s.initial_cost}, {"final_cost", s.final_cost}});
   j["solver"] = solver;
+  if (verification) j["verification"] = *verification;
   Json settings = Json::object();
-  for (const auto& [key, value] : e.settings) settings[key] = value;
+  for (const auto& [key, value] : e.settings) settings[key] = SettingJson(value);
   j["settings"] = settings;
   return j.dump(2) + "\n";
 }
+
+}  // namespace
+
+std::string ResultJson(const MotorEstimate& e) { return Document(e, nullptr); }
+
+std::string ResultJson(const MotorEstimate& e, const Json& verification) { return Document(e, &verification); }
 
 }  // namespace coilspin::output

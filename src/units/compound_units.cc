@@ -1,11 +1,11 @@
 #include "src/units/compound_units.h"
 
 #include <array>
-#include <charconv>
 #include <cmath>
 #include <stdexcept>
 
 #include "src/units/constants.h"
+#include "src/units/unit_text.h"
 #include "src/units/units.h"
 
 namespace coilspin::units {
@@ -33,15 +33,17 @@ struct UnitTerm {
 
 struct CompoundSpelling {
   ConstantKind kind;
-  std::string_view spelling;  // matched exactly, after '·' → '*' and whitespace removal
+  std::string_view spelling;  // matched exactly, after NormalisedUnitSpelling (unit_text.h)
   UnitTerm numerator;
   UnitTerm denominator;
 };
 
-// The one table of compound units. Factors come from the unit table: ozf·in and
-// kgf·cm from NIST SP 811 Appendix B, rpm = 2π/60 rad/s (physics), prefixes from
-// NIST SP 811 4.3. Per kind, the canonical (SI) spelling comes first.
-constexpr std::array<CompoundSpelling, 17> kCompoundTable = {{
+// The one table of compound units. Factors come from the unit table: ozf·in,
+// lbf·in and kgf·cm from NIST SP 811 Appendix B, rpm = 2π/60 rad/s (physics),
+// prefixes from NIST SP 811 4.3. Per kind, the canonical (SI) spelling comes
+// first. "N-m/A", "mN.m/A", "oz-in/A", "mN·m/A" reach these rows through
+// NormalisedUnitSpelling.
+constexpr std::array<CompoundSpelling, 19> kCompoundTable = {{
     // torque constant → N·m/A
     {ConstantKind::kTorqueConstant, "N*m/A", {1.0, Quantity::kTorque, "N*m"}, {1.0, Quantity::kCurrent, "A"}},
     {ConstantKind::kTorqueConstant, "Nm/A", {1.0, Quantity::kTorque, "Nm"}, {1.0, Quantity::kCurrent, "A"}},
@@ -49,6 +51,7 @@ constexpr std::array<CompoundSpelling, 17> kCompoundTable = {{
     {ConstantKind::kTorqueConstant, "mNm/A", {1.0, Quantity::kTorque, "mNm"}, {1.0, Quantity::kCurrent, "A"}},
     {ConstantKind::kTorqueConstant, "oz*in/A", {1.0, Quantity::kTorque, "oz*in"}, {1.0, Quantity::kCurrent, "A"}},
     {ConstantKind::kTorqueConstant, "kgf*cm/A", {1.0, Quantity::kTorque, "kgf*cm"}, {1.0, Quantity::kCurrent, "A"}},
+    {ConstantKind::kTorqueConstant, "lbf*in/A", {1.0, Quantity::kTorque, "lbf*in"}, {1.0, Quantity::kCurrent, "A"}},
     // back-EMF constant → V·s/rad (= V/(rad/s))
     {ConstantKind::kBackEmfConstant, "V*s/rad", {1.0, Quantity::kVoltage, "V"}, {1.0, Quantity::kSpeed, "rad/s"}},
     {ConstantKind::kBackEmfConstant, "V/(rad/s)", {1.0, Quantity::kVoltage, "V"}, {1.0, Quantity::kSpeed, "rad/s"}},
@@ -56,6 +59,7 @@ constexpr std::array<CompoundSpelling, 17> kCompoundTable = {{
     {ConstantKind::kBackEmfConstant, "V/krpm", {1.0, Quantity::kVoltage, "V"}, {kKilo, Quantity::kSpeed, "rpm"}},
     {ConstantKind::kBackEmfConstant, "mV/rpm", {1.0, Quantity::kVoltage, "mV"}, {1.0, Quantity::kSpeed, "rpm"}},
     {ConstantKind::kBackEmfConstant, "V/kRPM", {1.0, Quantity::kVoltage, "V"}, {kKilo, Quantity::kSpeed, "RPM"}},
+    {ConstantKind::kBackEmfConstant, "V/Krpm", {1.0, Quantity::kVoltage, "V"}, {kKilo, Quantity::kSpeed, "rpm"}},
     {ConstantKind::kBackEmfConstant, "mV/RPM", {1.0, Quantity::kVoltage, "mV"}, {1.0, Quantity::kSpeed, "RPM"}},
     // speed constant → (rad/s)/V
     {ConstantKind::kSpeedConstant, "(rad/s)/V", {1.0, Quantity::kSpeed, "rad/s"}, {1.0, Quantity::kVoltage, "V"}},
@@ -67,8 +71,6 @@ constexpr std::array<CompoundSpelling, 17> kCompoundTable = {{
 // Factors of two spellings closer than this are the same factor (they differ by
 // rounding of the products that make them, ~1e-16).
 constexpr double kSameFactorRelative = 1e-12;
-
-constexpr std::string_view kMiddleDot = "\u00b7";
 
 const KindInfo& InfoOf(ConstantKind kind) {
   for (const KindInfo& info : kKinds) {
@@ -83,29 +85,6 @@ double FactorOf(const UnitTerm& term) { return term.prefix * LookUpUnit(term.qua
 
 double FactorOf(const CompoundSpelling& row) { return FactorOf(row.numerator) / FactorOf(row.denominator); }
 
-bool IsSpace(char c) { return c == ' ' || c == '\t' || c == '\n' || c == '\r' || c == '\f' || c == '\v'; }
-
-std::string_view Trimmed(std::string_view text) {
-  while (!text.empty() && IsSpace(text.front())) text.remove_prefix(1);
-  while (!text.empty() && IsSpace(text.back())) text.remove_suffix(1);
-  return text;
-}
-
-// '·' → '*', whitespace dropped.
-std::string Normalised(std::string_view spelling) {
-  std::string out;
-  for (std::size_t i = 0; i < spelling.size();) {
-    if (spelling.substr(i, kMiddleDot.size()) == kMiddleDot) {
-      out += '*';
-      i += kMiddleDot.size();
-    } else {
-      if (!IsSpace(spelling[i])) out += spelling[i];
-      ++i;
-    }
-  }
-  return out;
-}
-
 std::string Joined(const std::vector<std::string>& words) {
   std::string text;
   for (const std::string& word : words) text += (text.empty() ? "" : ", ") + word;
@@ -117,7 +96,7 @@ std::string AcceptedText() {
   for (const KindInfo& info : kKinds) {
     text += (text.empty() ? "" : "; ") + std::string(info.name) + ": " + Joined(AcceptedCompoundUnits(info.kind));
   }
-  return "accepted units are " + text + " ('\u00b7' may be written for '*')";
+  return "accepted units are " + text + " ('\u00b7', or '-' and '.' between letters, may be written for '*')";
 }
 
 MotorConstantParse Failure(std::string message) { return {std::nullopt, std::move(message)}; }
@@ -129,7 +108,7 @@ std::string_view ConstantKindMeaning(ConstantKind kind) { return InfoOf(kind).me
 std::string_view SiUnitOf(ConstantKind kind) { return InfoOf(kind).si_unit; }
 
 std::optional<CompoundConversion> LookUpCompoundUnit(std::string_view spelling) {
-  const std::string wanted = Normalised(spelling);
+  const std::string wanted = NormalisedUnitSpelling(spelling);
   for (const CompoundSpelling& row : kCompoundTable) {
     if (row.spelling == wanted) return CompoundConversion{row.kind, FactorOf(row)};
   }
@@ -159,33 +138,19 @@ std::vector<CompoundUnitFactor> DistinctCompoundUnits(ConstantKind kind) {
 }
 
 MotorConstantParse ParseMotorConstant(std::string_view text) {
-  const std::string_view trimmed = Trimmed(text);
-  if (trimmed.empty()) return Failure("expected a number and a unit, such as '2.2 oz*in/A', got nothing");
-  double value = 0.0;
-  const char* first = trimmed.data();
-  const char* last = trimmed.data() + trimmed.size();
-  const auto [end, error] = std::from_chars(first, last, value);
-  if (error != std::errc() || end == first) {
-    return Failure("'" + std::string(trimmed) + "' does not start with a number; expected a number and a unit, " +
-                   "such as '2.2 oz*in/A'");
-  }
-  if (!std::isfinite(value)) return Failure("'" + std::string(trimmed) + "': the number must be finite");
-  const std::string_view unit_text = Trimmed(std::string_view(end, static_cast<std::size_t>(last - end)));
-  if (unit_text.empty()) return Failure("'" + std::string(trimmed) + "' has no unit; " + AcceptedText());
-  if (unit_text.front() == ',') {
-    return Failure("'" + std::string(trimmed) + "': write the decimal separator as '.', not ','");
-  }
-  const std::optional<CompoundConversion> conversion = LookUpCompoundUnit(unit_text);
+  const NumberAndUnit split = SplitNumberAndUnit(text, "2.2 oz*in/A");
+  if (!split.value) return Failure(split.error);
+  if (split.unit.empty()) return Failure("'" + split.trimmed + "' has no unit; " + AcceptedText());
+  const std::optional<CompoundConversion> conversion = LookUpCompoundUnit(split.unit);
   if (!conversion) {
-    return Failure("unknown unit '" + std::string(unit_text) + "' in '" + std::string(trimmed) + "'; " +
-                   AcceptedText());
+    return Failure("unknown unit '" + split.unit + "' in '" + split.trimmed + "'; " + AcceptedText());
   }
   MotorConstant constant;
   constant.kind = conversion->kind;
-  constant.value = value;
-  constant.unit = Normalised(unit_text);
-  constant.as_given = std::string(trimmed);
-  constant.value_si = value * conversion->factor_to_si;
+  constant.value = *split.value;
+  constant.unit = NormalisedUnitSpelling(split.unit);
+  constant.as_given = split.trimmed;
+  constant.value_si = *split.value * conversion->factor_to_si;
   return {constant, ""};
 }
 

@@ -13,8 +13,10 @@
 //
 // Every compound unit is a numerator and a denominator spelling of the one
 // unit table (units.cc), so no factor is written twice. Spellings are exact
-// (case included); '·' (U+00B7) may stand for '*'; whitespace between the
-// number and the unit, and inside the unit, is ignored. Nothing is guessed.
+// (case included) after NormalisedUnitSpelling (unit_text.h): '·' (U+00B7),
+// and '-' or '.' between letters, may stand for '*' ("N-m/A", "mN.m/A");
+// whitespace between the number and the unit, and inside the unit, is
+// ignored. Nothing is guessed.
 
 #include <optional>
 #include <string>
@@ -37,8 +39,8 @@ struct CompoundConversion {
   double factor_to_si = 1.0;  // x_SI = x·factor_to_si
 };
 
-// The kind and factor of a unit spelling ("oz*in/A"), after '·' → '*' and with
-// whitespace removed; nothing when the spelling is not in the table.
+// The kind and factor of a unit spelling ("oz*in/A"), after NormalisedUnitSpelling;
+// nothing when the spelling is not in the table.
 std::optional<CompoundConversion> LookUpCompoundUnit(std::string_view spelling);
 
 // The accepted spellings of one kind, in table order (canonical spelling first).
@@ -55,7 +57,7 @@ std::vector<CompoundUnitFactor> DistinctCompoundUnits(ConstantKind kind);
 struct MotorConstant {
   ConstantKind kind = ConstantKind::kTorqueConstant;
   double value = 0.0;      // the number as written
-  std::string unit;        // the unit as looked up ('*' for '·', no whitespace)
+  std::string unit;        // the unit as looked up (NormalisedUnitSpelling: "N-m/A" → "N*m/A")
   std::string as_given;    // the whole text, trimmed
   double value_si = 0.0;   // in SiUnitOf(kind)
 };

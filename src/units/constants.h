@@ -24,6 +24,7 @@ inline constexpr double kMilli = 1e-3;
 inline constexpr double kMicro = 1e-6;
 inline constexpr double kCenti = 1e-2;
 inline constexpr double kKilo = 1e3;
+inline constexpr double kPercent = 1e-2;  // NIST SP 811, 7.10.2: % = 0.01
 
 // ---- Units of force and torque ---------------------------------------------
 
@@ -32,6 +33,18 @@ inline constexpr double kKilo = 1e3;
 inline constexpr double kStandardGravity_m_s2 = 9.80665;
 // 1 ozf·in = 7.061552 × 10⁻³ N·m (NIST SP 811, Appendix B, ounce (avoirdupois)-force inch).
 inline constexpr double kOunceForceInch_N_m = 7.061552e-3;
+// 1 lbf·in = 1.129848 × 10⁻¹ N·m (NIST SP 811, Appendix B, pound-force inch).
+inline constexpr double kPoundForceInch_N_m = 1.129848e-1;
+
+// ---- Units of mass and length (for moments of inertia) ------------------------
+
+// 1 lb (avoirdupois) = 0.45359237 kg exactly (NIST SP 811, Appendix B, pound (avoirdupois)).
+inline constexpr double kPound_kg = 0.45359237;
+// 1 oz (avoirdupois) = 1/16 lb (NIST SP 811, Appendix B: 2.834952 × 10⁻² kg).
+inline constexpr double kOuncesPerPound = 16.0;
+// 1 in = 0.0254 m and 1 ft = 0.3048 m exactly (NIST SP 811, Appendix B, inch and foot).
+inline constexpr double kInch_m = 0.0254;
+inline constexpr double kFoot_m = 0.3048;
 
 // ---- Three-phase windings (star-connected, sinusoidal) ------------------------
 
@@ -60,6 +73,12 @@ inline constexpr double kLargestLoggedMagnitude = 1e100;
 // a shorter step is a wrong time unit or a corrupt time column, and dividing by
 // it (a derivative, a rate) would leave the range where a fit is meaningful.
 inline constexpr double kShortestSampleInterval_s = 1e-12;
+
+// The supply voltages small DC motors are rated at, for recognising a datasheet
+// figure printed for another voltage than the sheet's rated one (common
+// practice: battery multiples of 1.2 V and 1.5 V cells, and the usual bus voltages).
+inline constexpr double kCommonRatedVoltages_V[] = {1.5, 3.0,  4.5,  4.8,  6.0,  7.2,  9.0,   12.0,  14.4, 18.0,
+                                                     24.0, 36.0, 48.0, 60.0, 90.0, 110.0, 180.0, 220.0, 230.0};
 
 // ---- Materials ---------------------------------------------------------------
 

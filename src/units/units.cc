@@ -32,7 +32,7 @@ struct UnitSpelling {
 
 // The one table of unit spellings. Per quantity, the spellings of
 // docs/file-formats.md come first, then the synonyms. x_SI = x·factor + offset.
-const std::array<UnitSpelling, 32> kUnitTable = {{
+const std::array<UnitSpelling, 33> kUnitTable = {{
     // time → s. SI prefixes: NIST SP 811, 4.3.
     {Quantity::kTime, "s", {1.0, 0.0, false}},
     {Quantity::kTime, "ms", {kMilli, 0.0, false}},
@@ -58,11 +58,12 @@ const std::array<UnitSpelling, 32> kUnitTable = {{
     {Quantity::kPosition, "deg", {kRadiansPerRevolution / kDegreesPerRevolution, 0.0, false}},
     {Quantity::kPosition, "rev", {kRadiansPerRevolution, 0.0, false}},
     {Quantity::kPosition, "counts", {kRadiansPerRevolution, 0.0, true}},
-    // torque → N·m. ozf·in and kgf·cm: NIST SP 811, Appendix B.
+    // torque → N·m. ozf·in, lbf·in and kgf·cm: NIST SP 811, Appendix B.
     {Quantity::kTorque, "N*m", {1.0, 0.0, false}},
     {Quantity::kTorque, "mN*m", {kMilli, 0.0, false}},
     {Quantity::kTorque, "oz*in", {kOunceForceInch_N_m, 0.0, false}},
     {Quantity::kTorque, "kgf*cm", {kStandardGravity_m_s2 * kCenti, 0.0, false}},
+    {Quantity::kTorque, "lbf*in", {kPoundForceInch_N_m, 0.0, false}},
     {Quantity::kTorque, "Nm", {1.0, 0.0, false}},
     {Quantity::kTorque, "N\u00b7m", {1.0, 0.0, false}},  // MIDDLE DOT
     {Quantity::kTorque, "N.m", {1.0, 0.0, false}},

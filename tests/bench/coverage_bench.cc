@@ -15,15 +15,31 @@
 //       (Kt = Ke basis, Vb held at 0) with the named interval method
 //       (bootstrap: kBootstrapReplicates replicates). Scores R, L, Ke, J, Kt,
 //       and B and Tc as well.
+//   coverage_bench real [benches per motor, default 25]
+//       The motors and logs of `joint`, each bench with a real rig's artefacts
+//       at levels drawn per bench (coverage_real_rig.h): coloured noise, a
+//       current offset, commutation ripple, tachometer dropouts, spikes, a
+//       coarse current ADC and winding warm-up on some benches. Same scoring;
+//       the footer adds every bench's levels, every exception and a tally of
+//       every warning, note and not-identified reason.
+//   coverage_bench dump real|real-nostep MOTOR BENCH FOLDER
+//       Writes the logs of one real-rig bench (motor index, bench index) as CSV
+//       files into FOLDER, as the fitters see them (outliers set aside), for
+//       looking at a fit that went wrong with `coilspin fit`.
+//   coverage_bench real-nostep [benches per motor, default 25]
+//       The same without steps: locked-rotor plateaus, no-load and spin-down
+//       only (no capture, no free-shaft step); L is not scored.
 //   coverage_bench N          the same as `coverage_bench joint N` (older form).
-// Motors and benches: coverage_motors.h; tallies and tables: coverage_tally.h.
+// Motors and benches: coverage_motors.h, coverage_real_rig.h; tallies and tables: coverage_tally.h.
 
 #include <algorithm>
+#include <cctype>
 #include <chrono>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
 #include <ctime>
+#include <exception>
 #include <map>
 #include <optional>
 #include <string>
@@ -31,6 +47,7 @@
 #include <vector>
 
 #include "bench/coverage_motors.h"
+#include "bench/coverage_real_rig.h"
 #include "bench/coverage_tally.h"
 
 namespace {
@@ -47,10 +64,14 @@ constexpr int kBootstrapReplicates = 100;
 // Every kNoisyEvery-th joint bench has its noise σ multiplied by kNoisyScale.
 constexpr int kNoisyEvery = 3;
 constexpr double kNoisyScale = 3.0;
-// Seeds: distinct ranges for the two modes, kSeedStride apart per bench (each
+// Seeds: distinct ranges for the modes, kSeedStride apart per bench (each
 // bench uses seed … seed + 4 for its logs).
 constexpr std::uint64_t kJointSeedBase = 7000;
 constexpr std::uint64_t kStepSeedBase = 9000;
+constexpr std::uint64_t kRealSeedBase = 11000;
+// Real-rig benches draw their artefact levels from their seed, so each motor gets its own
+// range of seeds (kMotorSeedStride apart: room for 100 benches per motor).
+constexpr std::uint64_t kMotorSeedStride = 1000;
 constexpr std::uint64_t kSeedStride = 10;
 // A fit is listed as an outlier when an estimate lies more than this many of its
 // standard errors from the truth: by chance once in about 16 000 per parameter
@@ -65,7 +86,69 @@ struct Run {
   std::string first_warning, first_note;
   std::vector<std::pair<std::string, double>> motor_wall_s;
   std::vector<std::string> outliers;  // "motor #bench: key z, …; solver iterations, max residual lag-1"
+  // Real-rig modes: every message the fits gave, by shape (numbers as #), with the fits that
+  // gave it and one exact example; every exception.
+  bool tally_messages = false;
+  struct Message {
+    int fits = 0;
+    std::string example;
+    std::vector<std::string> benches;  // "motor #k"
+  };
+  std::map<std::string, Message> messages;
+  std::vector<std::string> exceptions;  // "motor #bench: what()"
 };
+
+// The message with every number (digits, a sign before them, a decimal point, an exponent) as "#";
+// digits that end a word ("lag-1") are kept.
+std::string ShapeOf(const std::string& text) {
+  std::string shape;
+  for (std::size_t i = 0; i < text.size();) {
+    const bool sign = (text[i] == '-' || text[i] == '+') && i + 1 < text.size() &&
+                      std::isdigit(static_cast<unsigned char>(text[i + 1])) &&
+                      (i == 0 || !std::isalnum(static_cast<unsigned char>(text[i - 1])));  // not "lag-1"
+    const bool digit_in_word = std::isdigit(static_cast<unsigned char>(text[i])) && i > 0 &&
+                               (std::isalpha(static_cast<unsigned char>(text[i - 1])) || text[i - 1] == '-');
+    if (digit_in_word) {  // "lag-1", "x2": part of a word, kept
+      shape += text[i++];
+      continue;
+    }
+    if (!sign && !std::isdigit(static_cast<unsigned char>(text[i]))) {
+      shape += text[i++];
+      continue;
+    }
+    ++i;
+    while (i < text.size() && (std::isdigit(static_cast<unsigned char>(text[i])) || text[i] == '.' ||
+                               ((text[i] == 'e' || text[i] == 'E') && i + 1 < text.size() &&
+                                (std::isdigit(static_cast<unsigned char>(text[i + 1])) || text[i + 1] == '-'))))
+      i += (text[i] == 'e' || text[i] == 'E') && text[i + 1] == '-' ? 2 : 1;
+    shape += '#';
+  }
+  return shape;
+}
+
+std::string Fixed(const char* format, double x);
+
+// Counts each warning (of the fit and of each test), how each test was used, each interval
+// note and not-identified reason, by shape.
+void TallyMessages(const std::string& bench, const MotorEstimate& e, Run* run) {
+  std::vector<std::string> lines;
+  for (const std::string& w : e.warnings) lines.push_back("fit warning: " + w);
+  for (const TestSummary& t : e.tests) {
+    lines.push_back(t.kind + " (" + t.file + ") used as: " + t.method);
+    for (const std::string& w : t.warnings) lines.push_back(t.kind + " (" + t.file + ") warning: " + w);
+  }
+  for (const std::string& note : e.intervals.notes) lines.push_back("interval note: " + note);
+  for (const auto& [key, reason] : e.not_identified) lines.push_back("not identified: " + key + ": " + reason);
+  std::map<std::string, bool> seen;  // a fit counts once per shape
+  for (const std::string& line : lines) {
+    const std::string shape = ShapeOf(line);
+    if (seen[shape]) continue;
+    seen[shape] = true;
+    Run::Message& m = run->messages[shape];
+    if (m.fits++ == 0) m.example = line;
+    m.benches.push_back(bench);
+  }
+}
 
 std::string Fixed(const char* format, double x) {
   char text[32];
@@ -108,6 +191,7 @@ void Score(const bench::Motor& m, int bench_index, const MotorEstimate& e, const
                             " solver iterations " + std::to_string(iterations) + ", max residual lag-1 " +
                             Fixed("%.2f", max_lag1));
   }
+  if (run->tally_messages) TallyMessages(std::string(m.name) + " #" + std::to_string(bench_index), e, run);
   if (!e.warnings.empty() && run->fits_with_warnings++ == 0) run->first_warning = e.warnings.front();
   if (!e.intervals.notes.empty() && run->fits_with_notes++ == 0) run->first_note = e.intervals.notes.front();
 }
@@ -125,14 +209,30 @@ void PrintFooter(const Run& run, int motors, int benches, double wall_s, double 
   std::printf("wall time per motor:");
   for (const auto& [name, seconds] : run.motor_wall_s) std::printf(" %s %.1f s;", name.c_str(), seconds);
   std::printf("\n");
+  if (!run.tally_messages) return;
+  std::printf("fits that threw: %zu\n", run.exceptions.size());
+  for (const std::string& line : run.exceptions) std::printf("  %s\n", line.c_str());
+  std::printf("messages by shape (# a number): fits giving it, the fits when few, one exact example:\n");
+  constexpr int kListBenchesUpTo = 15;
+  for (const auto& [shape, m] : run.messages) {
+    std::printf("  %3d  %s\n", m.fits, shape.c_str());
+    if (m.fits <= kListBenchesUpTo) {
+      std::printf("       in:");
+      for (const std::string& b : m.benches) std::printf(" %s;", b.c_str());
+      std::printf("\n");
+    }
+    if (m.example != shape) std::printf("       e.g. %s\n", m.example.c_str());
+  }
 }
 
 int Usage() {
   std::fprintf(stderr,
-               "usage: coverage_bench joint [benches per motor, default %d]\n"
+               "usage: coverage_bench joint [benches per motor, default %d] [wald|profile|bootstrap]\n"
+               "       coverage_bench real|real-nostep [benches per motor, default %d] [wald|profile|bootstrap]\n"
                "       coverage_bench step wald|profile|bootstrap [benches per motor, default %d]\n"
+               "       coverage_bench dump real|real-nostep MOTOR BENCH FOLDER\n"
                "       coverage_bench N   (= joint N)\n",
-               kDefaultJointBenches, kDefaultStepBenches);
+               kDefaultJointBenches, kDefaultJointBenches, kDefaultStepBenches);
   return 2;
 }
 
@@ -144,8 +244,10 @@ std::optional<int> Count(const char* text) {
 }
 
 template <typename Fit>
-void RunAll(const std::vector<bench::Motor>& motors, int benches, const std::vector<std::string>& keys, Fit fit) {
+void RunAll(const std::vector<bench::Motor>& motors, int benches, const std::vector<std::string>& keys, Fit fit,
+            bool tally_messages = false) {
   Run run;
+  run.tally_messages = tally_messages;
   const auto wall_start = std::chrono::steady_clock::now();
   const std::clock_t cpu_start = std::clock();  // process CPU time, all threads (glibc)
   const auto since = [](std::chrono::steady_clock::time_point t) {
@@ -153,7 +255,17 @@ void RunAll(const std::vector<bench::Motor>& motors, int benches, const std::vec
   };
   for (const bench::Motor& m : motors) {
     const auto motor_start = std::chrono::steady_clock::now();
-    for (int k = 0; k < benches; ++k) Score(m, k, fit(m, k), keys, &run);
+    for (int k = 0; k < benches; ++k) {
+      if (!tally_messages) {
+        Score(m, k, fit(m, k), keys, &run);
+        continue;
+      }
+      try {
+        Score(m, k, fit(m, k), keys, &run);
+      } catch (const std::exception& e) {
+        run.exceptions.push_back(std::string(m.name) + " #" + std::to_string(k) + ": " + e.what());
+      }
+    }
     run.motor_wall_s.emplace_back(m.name, since(motor_start));
   }
   const double wall_s = since(wall_start);
@@ -162,10 +274,18 @@ void RunAll(const std::vector<bench::Motor>& motors, int benches, const std::vec
   PrintFooter(run, static_cast<int>(motors.size()), benches, wall_s, cpu_s);
 }
 
-joint::MotorFitOptions OptionsFor(const bench::Motor& m, int counts_per_rev) {
+joint::MotorFitOptions OptionsFor(const bench::Motor& m, int counts_per_rev,
+                                  joint::IntervalMethod method = joint::IntervalMethod::kWald) {
   joint::MotorFitOptions options;
   if (m.encoder) options.counts_per_rev = counts_per_rev;  // as a user passes --counts-per-rev
+  options.intervals.method = method;
+  options.intervals.replicates = kBootstrapReplicates;
   return options;
+}
+
+// The optional interval method after the bench count (wald when absent); nullopt when misspelled.
+std::optional<joint::IntervalMethod> MethodArgument(int argc, char** argv, int at) {
+  return argc > at ? joint::IntervalMethodFromString(argv[at]) : joint::IntervalMethod::kWald;
 }
 
 }  // namespace
@@ -175,16 +295,64 @@ int main(int argc, char** argv) {
   if (mode == "joint" || Count(mode.c_str())) {
     const char* count_text = Count(mode.c_str()) ? argv[1] : (argc > 2 ? argv[2] : nullptr);
     const std::optional<int> benches = count_text ? Count(count_text) : kDefaultJointBenches;
-    if (!benches) return Usage();
-    std::printf("joint fit, Wald intervals\n\n");
+    const std::optional<joint::IntervalMethod> method = MethodArgument(argc, argv, 3);
+    if (!benches || !method) return Usage();
+    std::printf("joint fit, %s intervals\n\n", joint::IntervalMethodName(*method));
     RunAll(bench::JointMotors(), *benches,
            {"resistance", "inductance", "brush_drop", "back_emf_constant", "torque_constant", "inertia",
             "viscous_friction", "coulomb_friction"},
-           [](const bench::Motor& m, int k) {
+           [&](const bench::Motor& m, int k) {
              const double scale = (k % kNoisyEvery == 0) ? kNoisyScale : 1.0;
              return joint::FitMotor(bench::JointBench(m, kJointSeedBase + kSeedStride * k, scale),
-                                    OptionsFor(m, bench::kJointEncoderCountsPerRev));
+                                    OptionsFor(m, bench::kJointEncoderCountsPerRev, *method));
            });
+    return 0;
+  }
+  if (mode == "dump" && argc == 6) {  // dump real|real-nostep MOTOR BENCH FOLDER: one bench's logs as CSV
+    const bool with_steps = std::string(argv[2]) == "real";
+    const std::vector<bench::Motor> motors = bench::JointMotors();
+    const auto index = [](const char* text) {  // 0-based, as the footer's "#k"
+      const std::optional<int> n = Count((std::string("1") + text).c_str());
+      return n && text[0] >= '0' && text[0] <= '9' ? std::optional<int>(std::stoi(text)) : std::nullopt;
+    };
+    const std::optional<int> motor = index(argv[3]), k = index(argv[4]);
+    if (!motor || !k || *motor >= static_cast<int>(motors.size())) return Usage();
+    const std::uint64_t seed = kRealSeedBase + kMotorSeedStride * static_cast<std::uint64_t>(*motor) +
+                               kSeedStride * static_cast<std::uint64_t>(*k);
+    for (const joint::TestLog& t : bench::RealRigSession(motors[*motor], seed, with_steps))
+      bench::WriteCsv(t.log, std::string(argv[5]) + "/" + t.log.path + ".csv");
+    std::printf("%s #%d: %s\n", motors[*motor].name, *k,
+                bench::Describe(bench::DrawRig(motors[*motor], seed)).c_str());
+    return 0;
+  }
+  if (mode == "real" || mode == "real-nostep") {
+    const bool with_steps = mode == "real";
+    const std::optional<int> benches = argc > 2 ? Count(argv[2]) : kDefaultJointBenches;
+    const std::optional<joint::IntervalMethod> method = MethodArgument(argc, argv, 3);
+    if (!benches || !method) return Usage();
+    const std::vector<bench::Motor> motors = bench::JointMotors();
+    std::printf("real-rig sessions%s, joint fit, %s intervals\n\n",
+                with_steps ? "" : " without steps (locked-rotor plateaus, no-load, spin-down)",
+                joint::IntervalMethodName(*method));
+    std::vector<std::string> keys = {"resistance", "inductance", "brush_drop", "back_emf_constant",
+                                     "torque_constant", "inertia", "viscous_friction", "coulomb_friction"};
+    if (!with_steps) keys.erase(keys.begin() + 1);  // L needs a step of either kind
+    const auto seed_of = [&motors](const bench::Motor& m, int k) {
+      std::uint64_t motor_index = 0;
+      while (motors[motor_index].name != std::string(m.name)) ++motor_index;
+      return kRealSeedBase + kMotorSeedStride * motor_index + kSeedStride * static_cast<std::uint64_t>(k);
+    };
+    RunAll(
+        motors, *benches, keys,
+        [with_steps, &seed_of, &method](const bench::Motor& m, int k) {
+          return joint::FitMotor(bench::RealRigSession(m, seed_of(m, k), with_steps),
+                                 OptionsFor(m, bench::kJointEncoderCountsPerRev, *method));
+        },
+        true);
+    std::printf("bench levels (the same for real and real-nostep):\n");
+    for (const bench::Motor& m : motors)
+      for (int k = 0; k < *benches; ++k)
+        std::printf("  %s #%d: %s\n", m.name, k, bench::Describe(bench::DrawRig(m, seed_of(m, k))).c_str());
     return 0;
   }
   if (mode != "step" || argc < 3) return Usage();
@@ -198,9 +366,7 @@ int main(int argc, char** argv) {
          {"resistance", "inductance", "back_emf_constant", "torque_constant", "inertia", "viscous_friction",
           "coulomb_friction"},
          [&](const bench::Motor& m, int k) {
-           joint::MotorFitOptions options = OptionsFor(m, bench::kStepEncoderCountsPerRev);
-           options.intervals.method = *method;
-           options.intervals.replicates = kBootstrapReplicates;
+           const joint::MotorFitOptions options = OptionsFor(m, bench::kStepEncoderCountsPerRev, *method);
            return joint::FitMotor(bench::StepBench(m, kStepSeedBase + kSeedStride * k), options);
          });
   return 0;

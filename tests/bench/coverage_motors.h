@@ -3,7 +3,9 @@
 //
 // joint  four motors, each bench a locked-rotor plateau log, a locked-rotor step
 //        capture, no-load plateaus, a spin-down and a free-shaft voltage step
-//        from rest to the top voltage (speed or encoder like the other free-shaft logs).
+//        from rest to the top voltage (speed or encoder like the other free-shaft logs);
+//        SessionBench makes these logs with any bench per log (coverage_real_rig.h
+//        gives them a real rig's artefacts), with or without the two steps.
 // step   three motors, each bench one free-shaft step from rest; they differ in
 //        R, L, J, shaft sensor, noise scale and supply resistance.
 // Step logs follow tests/step/step_bench.h: 20 samples per electrical time
@@ -14,6 +16,7 @@
 // small brushed motors (from memory).
 
 #include <cstdint>
+#include <functional>
 #include <random>
 #include <string>
 #include <vector>
@@ -109,8 +112,15 @@ inline std::vector<Motor> StepMotors() {
           {"12 V, speed, noise x3, Rs 0.05 ohm", testing::IdealMotor(3.0, 2e-3, 0.025, 2e-6, 2e-6, 1e-3, 0.0), 12.0, false, 3.0, 0.05}};
 }
 
+// The bench of one log of a session: the log's index (kPlateauLog … kStepLog) and
+// whether its shaft is read by an encoder (never for the locked-rotor logs).
+using BenchOfLog = std::function<model::BenchConditions(int log, bool encoder)>;
+inline constexpr int kPlateauLog = 0, kCaptureLog = 1, kNoLoadLog = 2, kSpinDownLog = 3, kStepLog = 4;
+
 // Locked-rotor plateau levels, no-load levels (fractions of the top voltage) and holds.
-inline std::vector<joint::TestLog> JointBench(const Motor& m, std::uint64_t seed, double noise_scale) {
+// With `with_steps` false the session has no step of either kind (plateaus and coasts only:
+// locked-rotor plateaus, no-load, spin-down).
+inline std::vector<joint::TestLog> SessionBench(const Motor& m, const BenchOfLog& bench_of, bool with_steps) {
   using testing::ToBenchLog;
   std::vector<joint::TestLog> logs;
   const auto shaft = m.encoder ? model::ShaftChannels::kPosition : model::ShaftChannels::kSpeed;
@@ -118,33 +128,42 @@ inline std::vector<joint::TestLog> JointBench(const Motor& m, std::uint64_t seed
   for (double f : {0.1, 0.2, 0.3, 0.4, -0.15, -0.3}) lr.supply_levels_V.push_back(f * m.top_V);
   lr.hold_s = 0.3;
   logs.push_back({TestKind::kLockedRotor,
-                  ToBenchLog(model::SimulateLockedRotorPlateaus(m.p, lr, JointNoise(seed, false, noise_scale)), "lr")});
-  model::StepPlan capture;  // 100 samples per L/R, ten L/R either side of the step
-  capture.supply_after_V = 0.2 * m.top_V;
-  const double tau_s = m.p.inductance_H / m.p.resistance_ohm;
-  capture.sample_period_s = tau_s / 100.0;
-  capture.before_s = 10 * tau_s;
-  capture.after_s = 10 * tau_s;
-  logs.push_back({TestKind::kLockedRotor,
-                  ToBenchLog(model::SimulateLockedRotorStep(m.p, capture, JointNoise(seed + 1, false, noise_scale)),
-                             "capture")});
+                  ToBenchLog(model::SimulateLockedRotorPlateaus(m.p, lr, bench_of(kPlateauLog, false)), "lr")});
+  if (with_steps) {
+    model::StepPlan capture;  // 100 samples per L/R, ten L/R either side of the step
+    capture.supply_after_V = 0.2 * m.top_V;
+    const double tau_s = m.p.inductance_H / m.p.resistance_ohm;
+    capture.sample_period_s = tau_s / 100.0;
+    capture.before_s = 10 * tau_s;
+    capture.after_s = 10 * tau_s;
+    logs.push_back({TestKind::kLockedRotor,
+                    ToBenchLog(model::SimulateLockedRotorStep(m.p, capture, bench_of(kCaptureLog, false)), "capture")});
+  }
   model::NoLoadPlan nl;
   for (double f : {0.25, 0.4, 0.55, 0.7, 0.85, 1.0}) nl.supply_levels_V.push_back(f * m.top_V);
   nl.hold_s = 1.0;
   nl.shaft = shaft;
   logs.push_back(
-      {TestKind::kNoLoad, ToBenchLog(model::SimulateNoLoad(m.p, nl, JointNoise(seed + 2, m.encoder, noise_scale)), "nl")});
+      {TestKind::kNoLoad, ToBenchLog(model::SimulateNoLoad(m.p, nl, bench_of(kNoLoadLog, m.encoder)), "nl")});
   model::SpinDownPlan sd;
   sd.supply_V = m.top_V;
   sd.run_s = 1.0;
   sd.coast_s = 4.0;
   sd.shaft = shaft;
-  logs.push_back({TestKind::kSpinDown,
-                  ToBenchLog(model::SimulateSpinDown(m.p, sd, JointNoise(seed + 3, m.encoder, noise_scale)), "sd")});
-  logs.push_back({TestKind::kStep, ToBenchLog(model::SimulateStep(m.p, StepFromRest(m),
-                                                                  JointNoise(seed + 4, m.encoder, noise_scale)),
-                                              "step")});
+  logs.push_back(
+      {TestKind::kSpinDown, ToBenchLog(model::SimulateSpinDown(m.p, sd, bench_of(kSpinDownLog, m.encoder)), "sd")});
+  if (with_steps) {
+    logs.push_back({TestKind::kStep,
+                    ToBenchLog(model::SimulateStep(m.p, StepFromRest(m), bench_of(kStepLog, m.encoder)), "step")});
+  }
   return logs;
+}
+
+// The ideal session: white noise, log i seeded seed + i.
+inline std::vector<joint::TestLog> JointBench(const Motor& m, std::uint64_t seed, double noise_scale) {
+  return SessionBench(
+      m, [&](int log, bool encoder) { return JointNoise(seed + static_cast<std::uint64_t>(log), encoder, noise_scale); },
+      true);
 }
 
 inline std::vector<joint::TestLog> StepBench(const Motor& m, std::uint64_t seed) {

@@ -51,6 +51,17 @@ TEST(ConsistencyCommand, SpeedConstantInsteadOfKe) {
   EXPECT_EQ(j["ke"]["as_given"], "477.4648293 rpm/V");
 }
 
+TEST(ConsistencyCommand, DatasheetSpellingsWithHyphensDotsAndCapitalK) {
+  // Issue 13: oz-in/A, N-m/A, mN.m/A and V/Krpm were refused; they are the same units as
+  // oz*in/A (NIST SP 811 Appendix B), N*m/A, mN*m/A (NIST SP 811 4.3) and V/krpm (physics).
+  ScratchFolder folder("consistency_spellings");
+  for (const char* kt : {"--kt '2.832238579 oz-in/A'", "--kt '0.02 N-m/A'", "--kt '20 mN.m/A'"}) {
+    const RunResult r = RunCoilspin(Args(kt, "--ke '2.094395102 V/Krpm'"), folder.path());
+    EXPECT_EQ(r.status, 0) << kt << "\n" << r.err;
+    EXPECT_NE(r.out.find("verdict: consistent"), std::string::npos) << r.out;
+  }
+}
+
 TEST(ConsistencyCommand, LineToLineKeExitsOneAndNamesTheConvention) {
   // references.md (brushless conventions): Ke_LL,pk = √3·k_ph = 0.034641 V·s/rad = 3.627598728 V/krpm
   ScratchFolder folder("consistency_sqrt3");

@@ -2,10 +2,15 @@
 // R = 1.35 ohm at 20 degC, i.e. 1.35·(234.5 + 25)/(234.5 + 20) at 25 degC
 // (copper law, IEC 60028 constant); L = 0.82 mH; Vb = 0.9 V;
 // Ke = Kt = 0.021 V·s/rad, J = 3.2e-5 kg·m², B = 1.1e-5 N·m·s/rad, Tc = 4.5e-3 N·m.
-// Demo data is invented, so this checks the demo, not the method (tests/locked_rotor and
-// tests/free_shaft do that).
+// Demo data is invented, so this checks the demo, not the method (tests/locked_rotor,
+// tests/free_shaft and the coverage benchmark do that). One fixed bench of seven
+// parameters: each 95 % interval misses its truth 5 % of the time by design, so the
+// check asks for the truth within 3 standard errors (a 0.3 % miss per parameter for a
+// normal estimate; statistics: normal tail), which a wrong estimate still fails.
 
 #include <gtest/gtest.h>
+
+#include <cmath>
 
 #include <nlohmann/json.hpp>
 
@@ -14,7 +19,7 @@
 namespace coilspin::testing {
 namespace {
 
-TEST(Demo, RecoversTheInventedMotorWithinItsIntervals) {
+TEST(Demo, RecoversTheInventedMotorWithinThreeStandardErrors) {
   ScratchFolder folder("demo");
   const RunResult r = RunCoilspin("demo --json demo.json", folder.path());
   ASSERT_EQ(r.status, 0) << r.err;
@@ -31,8 +36,7 @@ TEST(Demo, RecoversTheInventedMotorWithinItsIntervals) {
                 {"coulomb_friction", 4.5e-3}};
   for (const auto& t : truths) {
     const auto& p = j["parameters"][t.key];
-    EXPECT_LE(p["ci"][0].get<double>(), t.truth) << t.key;
-    EXPECT_GE(p["ci"][1].get<double>(), t.truth) << t.key;
+    EXPECT_LE(std::fabs(p["value"].get<double>() - t.truth), 3.0 * p["std_error"].get<double>()) << t.key;
   }
   EXPECT_EQ(j["motor"]["label"], "dome rotator DR-2");
   EXPECT_EQ(j["tests"][1]["file"], "locked-rotor-step.csv");

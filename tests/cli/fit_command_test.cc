@@ -47,7 +47,7 @@ TEST_F(FitCommand, GoodRunWritesTableAndResultFile) {
   EXPECT_NE(r.out.find("resistance"), std::string::npos);
   EXPECT_NE(r.out.find("ohm"), std::string::npos);
   const auto j = nlohmann::json::parse(Slurp(dir() / "result.json"));
-  EXPECT_EQ(j["format"], "coilspin.result/1");
+  EXPECT_EQ(j["format"], "coilspin.result/2");
   const double r_ohm = j["parameters"]["resistance"]["value"];
   const double l_H = j["parameters"]["inductance"]["value"];
   EXPECT_NEAR(r_ohm, kTrueResistance_ohm, 0.01 * kTrueResistance_ohm);
@@ -79,6 +79,14 @@ TEST_F(FitCommand, RequiredInductanceWithoutStepCaptureExitsOne) {
   EXPECT_EQ(r.status, 1);
   const auto j = nlohmann::json::parse(Slurp(dir() / "req.json"));  // still written, says why
   EXPECT_TRUE(j["not_identified"].contains("inductance"));
+}
+
+TEST_F(FitCommand, QuietExitOneStillSaysWhyOnStderr) {
+  const RunResult r = RunCoilspin("fit --locked-rotor plateaus.csv --require inductance --quiet", dir());
+  EXPECT_EQ(r.status, 1);
+  EXPECT_EQ(r.out, "");
+  EXPECT_NE(r.err.find("coilspin: inductance not determined: needs a locked-rotor step capture"), std::string::npos)
+      << r.err;
 }
 
 TEST_F(FitCommand, FreeShaftStepEndToEnd) {

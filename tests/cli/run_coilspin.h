@@ -1,7 +1,11 @@
 #pragma once
 // Test helper: runs the built coilspin binary and captures its exit status,
-// stdout and stderr.
+// stdout and stderr. Every result file a `fit` or `demo` run writes with
+// --json is checked against docs/result-format-2.schema.json
+// (tests/tools/validate_result.py, python3-jsonschema); a file that does not
+// conform fails the test that wrote it.
 
+#include <gtest/gtest.h>
 #include <sys/wait.h>
 
 #include <cstdio>
@@ -26,6 +30,32 @@ inline std::string Slurp(const std::filesystem::path& path) {
   return text.str();
 }
 
+// The path after " --json " in `arguments` when the command is fit or demo; empty otherwise.
+inline std::string ResultFileArgument(const std::string& arguments) {
+  if (arguments.rfind("fit", 0) != 0 && arguments.rfind("demo", 0) != 0) return "";
+  const std::string flag = " --json ";
+  const std::size_t at = arguments.find(flag);
+  if (at == std::string::npos) return "";
+  const std::size_t start = at + flag.size();
+  return arguments.substr(start, arguments.find(' ', start) - start);
+}
+
+// Fails the current test when `path` is not a valid format-2 result file.
+inline void ExpectValidResultFile(const std::filesystem::path& path) {
+  const std::string command = std::string(COILSPIN_PYTHON) + " '" + COILSPIN_TEST_SOURCE_DIR +
+                              "/tools/validate_result.py' '" + COILSPIN_TEST_SOURCE_DIR +
+                              "/../docs/result-format-2.schema.json' '" + path.string() + "' 2>&1";
+  std::string report;
+  if (FILE* pipe = popen(command.c_str(), "r")) {
+    char buffer[4096];
+    while (std::fgets(buffer, sizeof buffer, pipe)) report += buffer;
+    const int status = pclose(pipe);
+    EXPECT_EQ(status, 0) << "result file does not conform to docs/result-format-2.schema.json:\n" << report;
+  } else {
+    ADD_FAILURE() << "cannot run " << command;
+  }
+}
+
 // Runs coilspin in `folder`; `address_space_kib` > 0 limits its address space (ulimit -v).
 // status is -1 when coilspin did not exit (a signal).
 inline RunResult RunCoilspin(const std::string& arguments, const std::filesystem::path& folder,
@@ -41,6 +71,9 @@ inline RunResult RunCoilspin(const std::string& arguments, const std::filesystem
   r.status = WIFEXITED(raw) ? WEXITSTATUS(raw) : -1;
   r.out = Slurp(out);
   r.err = Slurp(err);
+  const std::string result = ResultFileArgument(arguments);
+  if (!result.empty() && (r.status == 0 || r.status == 1) && std::filesystem::exists(folder / result))
+    ExpectValidResultFile(folder / result);
   return r;
 }
 

@@ -10,7 +10,9 @@
 #include <string>
 #include <vector>
 
+#include "cli/inapplicable_options.h"
 #include "cli/run_coilspin.h"
+#include "cli/simulated_csv.h"
 
 namespace coilspin::testing {
 namespace {
@@ -21,36 +23,6 @@ const std::string kMotor =
     "--viscous-friction 1.1e-5 --coulomb-friction 4.5e-3";
 // The CSV writer keeps 10 significant digits (src/output/bench_log_csv.h): times below 1 s to 1e-12 s.
 constexpr double kTimeTolerance_s = 1e-12;
-
-struct Csv {
-  std::vector<std::string> comments;  // without the leading "# "
-  std::vector<std::string> header;
-  std::vector<std::vector<double>> rows;
-};
-
-std::vector<std::string> Cells(const std::string& line) {
-  std::vector<std::string> cells;
-  std::istringstream in(line);
-  for (std::string cell; std::getline(in, cell, ',');) cells.push_back(cell);
-  return cells;
-}
-
-Csv ReadCsv(const std::filesystem::path& path) {
-  Csv csv;
-  std::istringstream in(Slurp(path));
-  for (std::string line; std::getline(in, line);) {
-    if (line.rfind("# ", 0) == 0) {
-      csv.comments.push_back(line.substr(2));
-    } else if (csv.header.empty()) {
-      csv.header = Cells(line);
-    } else {
-      std::vector<double> row;
-      for (const std::string& cell : Cells(line)) row.push_back(std::stod(cell));
-      csv.rows.push_back(row);
-    }
-  }
-  return csv;
-}
 
 class SimulateStepCommand : public ::testing::Test {
  protected:
@@ -161,23 +133,12 @@ TEST_F(SimulateStepCommand, DefaultSamplePeriodResolvesTheElectricalTimeConstant
   EXPECT_NEAR(fast.rows[1][0] - fast.rows[0][0], 10e-6, kTimeTolerance_s);
 }
 
-struct Inapplicable {
-  std::string name;
-  std::string arguments;  // after "simulate"
-  std::string expected;   // a fragment of the message
-};
-
-void PrintTo(const Inapplicable& c, std::ostream* os) { *os << c.name; }
-
 class InapplicableOptions : public SimulateStepCommand, public ::testing::WithParamInterface<Inapplicable> {};
 
 TEST_P(InapplicableOptions, ExitTwoAndWriteNothing) {
-  // common practice: an option that would be ignored is an error, so a typo cannot pass silently
   const Inapplicable& c = GetParam();
   const RunResult r = RunCoilspin("simulate " + c.arguments + " --out never.csv " + kMotor, dir());
-  EXPECT_EQ(r.status, 2) << r.err;
-  EXPECT_NE(r.err.find(c.expected), std::string::npos) << r.err;
-  EXPECT_FALSE(std::filesystem::exists(dir() / "never.csv"));
+  ExpectRefused(c, r, dir() / "never.csv");
 }
 
 INSTANTIATE_TEST_SUITE_P(

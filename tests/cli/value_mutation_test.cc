@@ -188,7 +188,7 @@ TEST(ValueMutation, EveryRunEndsInZeroOneOrTwoAndExitTwoKeepsTheResultFile) {
     if (status == 2) {
       EXPECT_EQ(Slurp(kept), previous);
     } else {
-      EXPECT_EQ(nlohmann::json::parse(Slurp(kept))["format"], "coilspin.result/1");
+      EXPECT_EQ(nlohmann::json::parse(Slurp(kept))["format"], "coilspin.result/2");
     }
     ++by_status[status];
     ++by_mutation[mutations.substr(0, mutations.find(" + "))];

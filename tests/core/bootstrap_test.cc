@@ -6,6 +6,7 @@
 
 #include <chrono>
 #include <cmath>
+#include <limits>
 #include <cstdio>
 #include <memory>
 #include <random>
@@ -29,13 +30,11 @@ constexpr double kIntercept = test_support::kLineIntercept;
 constexpr double kSlope = test_support::kLineSlope;
 
 TEST(BlockResampling, BlockLengthFollowsTheRule) {
-  // From the rule in block_resampling.h: ℓ = ceil(n^{1/3}·max(1, (6ρ²/(1−ρ²)²)^{1/3})), ℓ ≤ n/5.
-  EXPECT_EQ(BlockLength(kMinResidualsForBlocks - 1, 0.9), 1);  // a few readings: one by one
-  EXPECT_EQ(BlockLength(1000, 0.0), 10);                        // white: n^{1/3}
-  EXPECT_EQ(BlockLength(1000, -0.4), 10);                       // negative ρ counts as 0
-  const double factor = std::cbrt(6.0 * 0.64 / ((1.0 - 0.64) * (1.0 - 0.64)));  // ρ = 0.8
-  EXPECT_EQ(BlockLength(200, 0.8), static_cast<int>(std::ceil(std::cbrt(200.0) * factor)));
-  EXPECT_EQ(BlockLength(100, 0.99), 100 / kMinBlocksPerGroup);  // capped
+  // From the rule in block_resampling.h: ℓ = ceil(max(n^{1/3}, 2·τ)), ℓ ≤ n/5.
+  EXPECT_EQ(BlockLength(kMinResidualsForBlocks - 1, 9.0), 1);  // a few readings: not by blocks
+  EXPECT_EQ(BlockLength(1000, 1.0), 10);                        // white: n^{1/3}
+  EXPECT_EQ(BlockLength(1000, 9.0), 18);                        // AR(1) at φ = 0.8: τ = 9, twice it
+  EXPECT_EQ(BlockLength(100, 99.0), 100 / kMinBlocksPerGroup);  // capped
 }
 
 TEST(BlockResampling, ResampleIsMadeOfContiguousBlocksOfTheOriginal) {
@@ -174,6 +173,45 @@ TEST(Bootstrap, BlocksWidenTheStandardErrorUnderAr1Noise) {
   EXPECT_NEAR(boot / truth, 1.0, 0.35);
   EXPECT_LT(std::abs(boot / truth - 1.0), std::abs(naive / truth - 1.0));
   std::printf("AR(1) phi = 0.8, n = 200: naive/true %.3f, bootstrap/true %.3f\n", naive / truth, boot / truth);
+}
+
+TEST(Bootstrap, AFewPlateauMeansKeepTheirSpread) {
+  // Six readings of a line, two parameters: resampling the raw residuals with replacement
+  // gives a variance of about (n − p)/n = 2/3 of the truth (E r̂² = σ²(1 − h), Davison &
+  // Hinkley §6.2.3 — from memory), the percentile interval then covers about 2Φ(1.96·√(2/3)) − 1
+  // = 89 % before the t quantile's stretch. The wild bootstrap of r̂/√(1 − h) gives Var(b̂)
+  // itself: averaged over 60 such lines the bootstrap variance is within 15 % of the exact
+  // σ²/Sxx (Draper & Smith §1.4) — Monte Carlo error of a variance from 200 replicates
+  // √(2/200) = 10 % per line, a third of that over 60 lines, plus the spread of s² itself.
+  constexpr int kCount = 6, kLines = 60;
+  double ratio = 0.0;
+  for (int s = 0; s < kLines; ++s) {
+    const auto line = MakeAr1Line(kCount, kIntercept, kSlope, kInnovationSigma, 0.0, 700 + s);
+    LineFit fit;
+    BuildLine(&fit, line);
+    const FitResult full = fit.problem.Solve(SolveOptions());
+    ASSERT_TRUE(full.usable) << full.message;
+    BootstrapOptions options;
+    options.replicates = 200;
+    options.seed = kDefaultBootstrapSeed + s;
+    const BootstrapResult boot = Bootstrap(fit.problem, full, options);
+    ASSERT_TRUE(boot.usable) << boot.message;
+    EXPECT_EQ(boot.block_lengths[0], 0);  // a wild group
+    double sxx = 0.0, mean = 0.0;
+    for (double x : line.x) mean += x / kCount;
+    for (double x : line.x) sxx += (x - mean) * (x - mean);
+    const double exact = kInnovationSigma * kInnovationSigma / sxx;  // Var(b̂) = σ²/Sxx, white noise
+    ratio += boot.Get("slope").std_error * boot.Get("slope").std_error / exact / kLines;
+  }
+  EXPECT_NEAR(ratio, 1.0, 0.15) << "bootstrap variance / exact";
+  std::printf("six-point lines: wild bootstrap variance / exact %.3f\n", ratio);
+}
+
+TEST(Bootstrap, SmallSampleStretchIsTOverZ) {
+  // t_{0.975, 4} = 2.776445 and z_{0.975} = 1.959964 (statistical tables; SciPy t.ppf, norm.ppf).
+  EXPECT_NEAR(SmallSampleStretch(4.0, 0.95), 2.776445 / 1.959964, 1e-6);
+  EXPECT_EQ(SmallSampleStretch(std::numeric_limits<double>::infinity(), 0.95), 1.0);
+  EXPECT_EQ(SmallSampleStretch(std::numeric_limits<double>::quiet_NaN(), 0.95), 1.0);
 }
 
 TEST(Bootstrap, DerivedQuantityAndProgress) {

@@ -75,7 +75,6 @@ TEST(Quantisation, CountedTermMatchesTheSpreadOverRandomPhases) {
       const int offset = problem.AddParameter({"offset", 0.0, 1.0, {}, {}, false});
       const int speed = problem.AddParameter({"speed", 0.3, 0.0, {}, {}, false});
       GroupSpec spec{"position", kStep / std::sqrt(12.0)};
-      spec.quantised = true;
       if (counted) {
         spec.quantisation_step = kStep;
         spec.modelled_reading = ModelledReadingOf(residual, {offset, speed}, &reading);

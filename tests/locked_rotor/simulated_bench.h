@@ -1,10 +1,11 @@
 #pragma once
 // Test helper: a simulated log as the fitters receive it (BenchLog, SI),
-// without a round trip through a file.
+// without a round trip through a file, with isolated outliers set aside as the CLI does.
 
 #include <string>
 
 #include "src/ingest/bench_log.h"
+#include "src/ingest/outliers.h"
 #include "src/model/sampled_log.h"
 
 namespace coilspin::testing {
@@ -19,6 +20,7 @@ inline BenchLog ToBenchLog(const model::SampledLog& s, const std::string& name) 
   log.position_rad = s.position_rad;
   log.torque_N_m = s.torque_N_m;
   log.temperature_degC = s.temperature_degC;
+  SetAsideOutliers(&log);  // as the CLI does after reading a log
   return log;
 }
 

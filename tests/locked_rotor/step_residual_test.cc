@@ -16,7 +16,7 @@
 namespace coilspin::locked_rotor {
 namespace {
 
-constexpr int kParameters = 4;  // R, L, Vb, i0
+constexpr int kParameters = 5;  // R, L, Vb, i0, i_z
 
 struct Capture {
   BenchLog log;
@@ -41,7 +41,7 @@ Capture MakeCapture(double brush_drop_V) {
 
 std::vector<double> Evaluate(const StepCurrentResidual& r, const double p[kParameters]) {
   std::vector<double> out(r.time_s->size());
-  const double* pointers[kParameters] = {&p[0], &p[1], &p[2], &p[3]};
+  const double* pointers[kParameters] = {&p[0], &p[1], &p[2], &p[3], &p[4]};
   r(pointers, out.data());
   return out;
 }
@@ -50,13 +50,13 @@ TEST(StepResidual, ZeroAtTheTruthOnANoiseFreeCapture) {
   // The simulator holds V_s between samples with R_s = 0, which is the model's
   // zero-order hold exactly (physics: the exact solution of a first-order ODE).
   const Capture c = MakeCapture(0.8);
-  const double truth[kParameters] = {2.2, 1.5e-3, 0.8, 0.0};
+  const double truth[kParameters] = {2.2, 1.5e-3, 0.8, 0.0, 0.0};
   for (double r : Evaluate(c.residual, truth)) EXPECT_NEAR(r, 0.0, 1e-9);
 }
 
 TEST(StepResidual, JacobianMatchesCentralDifferences) {
   const Capture c = MakeCapture(0.8);
-  const double at[kParameters] = {2.0, 1.3e-3, 0.7, 0.01};  // away from the truth: residuals non-zero
+  const double at[kParameters] = {2.0, 1.3e-3, 0.7, 0.01, 0.02};  // away from the truth: residuals non-zero
   using Jet = ceres::Jet<double, kParameters>;
   Jet p[kParameters];
   const Jet* pointers[kParameters];

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "src/model/simulate_locked_rotor.h"
+#include "model/series_moments.h"
 
 namespace coilspin::model {
 namespace {
@@ -16,26 +17,6 @@ namespace {
 // Sampling error bounds are set at four standard errors (common practice: a
 // fixed seed makes the test deterministic; 4 SE would fail by chance < 1e-4).
 constexpr double kStandardErrors = 4.0;
-
-struct Moments {
-  double mean = 0.0;
-  double std_dev = 0.0;
-  double lag1 = 0.0;  // lag-1 autocorrelation
-};
-
-Moments MomentsOf(const std::vector<double>& x) {
-  const double n = static_cast<double>(x.size());
-  Moments m;
-  for (double v : x) m.mean += v / n;
-  double sum_squares = 0.0, sum_lag = 0.0;
-  for (std::size_t k = 0; k < x.size(); ++k) {
-    sum_squares += (x[k] - m.mean) * (x[k] - m.mean);
-    if (k > 0) sum_lag += (x[k] - m.mean) * (x[k - 1] - m.mean);
-  }
-  m.std_dev = std::sqrt(sum_squares / (n - 1.0));
-  m.lag1 = sum_lag / sum_squares;
-  return m;
-}
 
 std::vector<double> Difference(const std::vector<double>& a, const std::vector<double>& b) {
   std::vector<double> d(a.size());

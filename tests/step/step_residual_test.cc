@@ -18,6 +18,7 @@ namespace coilspin::step {
 namespace {
 
 constexpr int kParameters = 10;  // R, L, Ke, Kt, J, B, Tc, Vb, i0, ω0
+constexpr int kCurrentParameters = kParameters + 1;  // and i_z, the current sensor's zero reading
 
 struct Log {
   BenchLog log;
@@ -40,7 +41,14 @@ std::vector<double> Truth(const model::MotorParameters& m) {
           m.inertia_kg_m2,  m.viscous_friction_N_m_s_per_rad, m.coulomb_friction_N_m, m.brush_drop_V, 0.0, 0.0};
 }
 
-std::vector<double> Evaluate(const StepResidual& r, const std::vector<double>& p) {
+// The parameters a channel's functor reads: the current channel's end with i_z (0: no offset).
+std::vector<double> ForChannel(std::vector<double> p, StepChannel channel, double zero_A = 0.0) {
+  if (channel == StepChannel::kCurrent) p.push_back(zero_A);
+  return p;
+}
+
+std::vector<double> Evaluate(const StepResidual& r, std::vector<double> p) {
+  if (static_cast<int>(p.size()) < r.ParameterCount()) p = ForChannel(p, r.channel);
   std::vector<double> out(r.time_s->size());
   std::vector<const double*> pointers;
   for (const double& value : p) pointers.push_back(&value);
@@ -85,20 +93,23 @@ TEST(StepResidual, JacobianMatchesCentralDifferences) {
   const double offsets[kParameters] = {1.04, 0.95, 1.03, 0.97, 1.05, 1.2, 0.9, 0.8, 0.0, 0.0};
   for (int j = 0; j < kParameters; ++j) at[j] *= offsets[j];
   at[8] = 0.01;  // i0 [A]
-  using Jet = ceres::Jet<double, kParameters>;
+  using Jet = ceres::Jet<double, kCurrentParameters>;
   for (StepChannel channel : {StepChannel::kCurrent, StepChannel::kSpeed}) {
     const StepResidual r = ResidualOf(l.log, channel);
-    std::vector<Jet> p(kParameters);
+    const std::vector<double> here = ForChannel(at, channel, 0.02);  // i_z = 20 mA on the current channel
+    const int count = static_cast<int>(here.size());
+    std::vector<Jet> p(static_cast<std::size_t>(count));
     std::vector<const Jet*> pointers;
-    for (int j = 0; j < kParameters; ++j) {
-      p[j] = Jet(at[j], j);
+    for (int j = 0; j < count; ++j) {
+      p[j] = Jet(here[j], j);
       pointers.push_back(&p[j]);
     }
     std::vector<Jet> automatic(l.log.size());
     r(pointers.data(), automatic.data());
-    for (int j = 0; j < 9; ++j) {  // ω0 is held at 0 from rest (its derivative crosses the stiction rule)
-      const double h = 1e-6 * std::max(std::fabs(at[j]), 1e-6);
-      std::vector<double> up = at, down = at;
+    for (int j = 0; j < count; ++j) {
+      if (j == 9) continue;  // ω0 is held at 0 from rest (its derivative crosses the stiction rule)
+      const double h = 1e-6 * std::max(std::fabs(here[j]), 1e-6);
+      std::vector<double> up = here, down = here;
       up[j] += h;
       down[j] -= h;
       const auto ru = Evaluate(r, up), rd = Evaluate(r, down);

@@ -37,6 +37,13 @@ TEST(TorqueConstantUnits, FactorsToNewtonMetresPerAmpere) {
   EXPECT_DOUBLE_EQ(FactorOf("oz\u00b7in/A", kt), 7.061552e-3);  // NIST SP 811 Appendix B, '·' spelling
   EXPECT_DOUBLE_EQ(FactorOf("mN\u00b7m/A", kt), 1e-3);          // NIST SP 811 4.3, '·' spelling
   EXPECT_DOUBLE_EQ(FactorOf("kgf\u00b7cm/A", kt), 9.80665e-2);  // NIST SP 811 Appendix B, '·' spelling
+  EXPECT_DOUBLE_EQ(FactorOf("lbf*in/A", kt), 1.129848e-1);      // NIST SP 811 Appendix B: lbf·in = 0.1129848 N·m
+  EXPECT_DOUBLE_EQ(FactorOf("lbf\u00b7in/A", kt), 1.129848e-1);  // NIST SP 811 Appendix B, '·' spelling
+  // Datasheets join the factors of N·m with '-' or '.' (issue 13's spellings).
+  EXPECT_EQ(FactorOf("N-m/A", kt), 1.0);                        // physics (SI unit)
+  EXPECT_DOUBLE_EQ(FactorOf("mN.m/A", kt), 1e-3);               // NIST SP 811 4.3: prefix milli
+  EXPECT_DOUBLE_EQ(FactorOf("oz-in/A", kt), 7.061552e-3);       // NIST SP 811 Appendix B (ozf·in)
+  EXPECT_DOUBLE_EQ(FactorOf("lbf-in/A", kt), 1.129848e-1);      // NIST SP 811 Appendix B (lbf·in)
 }
 
 TEST(BackEmfConstantUnits, FactorsToVoltSecondsPerRadian) {
@@ -48,6 +55,7 @@ TEST(BackEmfConstantUnits, FactorsToVoltSecondsPerRadian) {
   EXPECT_DOUBLE_EQ(FactorOf("mV/rpm", ke), 9.549296585513721e-3);  // physics + NIST SP 811 4.3 (milli)
   EXPECT_DOUBLE_EQ(FactorOf("V/kRPM", ke), 9.549296585513721e-3);  // same, capital spelling
   EXPECT_DOUBLE_EQ(FactorOf("mV/RPM", ke), 9.549296585513721e-3);  // same, capital spelling
+  EXPECT_DOUBLE_EQ(FactorOf("V/Krpm", ke), 9.549296585513721e-3);  // same; datasheets capitalise the K
   EXPECT_EQ(FactorOf("V*s/rad", ke), 1.0);                         // physics (SI unit)
   EXPECT_EQ(FactorOf("V\u00b7s/rad", ke), 1.0);                    // physics (SI unit, '·')
   EXPECT_EQ(FactorOf("V/(rad/s)", ke), 1.0);                       // physics (the same unit)
@@ -140,13 +148,14 @@ TEST(CompoundUnitTable, EverySpellingLooksUpWithItsKind) {
 }
 
 TEST(CompoundUnitTable, DistinctFactorsDropSynonyms) {
-  // NIST SP 811: N·m/A, mN·m/A, ozf·in/A and kgf·cm/A are four different sizes
+  // NIST SP 811: N·m/A, mN·m/A, ozf·in/A, kgf·cm/A and lbf·in/A are five different sizes
   const std::vector<CompoundUnitFactor> torque = DistinctCompoundUnits(ConstantKind::kTorqueConstant);
-  ASSERT_EQ(torque.size(), 4u);
+  ASSERT_EQ(torque.size(), 5u);
   EXPECT_EQ(torque[0].spelling, "N*m/A");
   EXPECT_EQ(torque[1].spelling, "mN*m/A");
   EXPECT_EQ(torque[2].spelling, "oz*in/A");
   EXPECT_EQ(torque[3].spelling, "kgf*cm/A");
+  EXPECT_EQ(torque[4].spelling, "lbf*in/A");
   // physics: V/krpm and mV/rpm are the same size, so three distinct back-EMF units
   const std::vector<CompoundUnitFactor> back_emf = DistinctCompoundUnits(ConstantKind::kBackEmfConstant);
   ASSERT_EQ(back_emf.size(), 3u);

@@ -71,8 +71,10 @@ TEST(TorqueUnits, FactorsToNewtonMetres) {
   for (const char* spelling : {"N*m", "Nm", "N\u00b7m", "N.m"}) {
     EXPECT_EQ(FactorOf(Quantity::kTorque, spelling), 1.0) << spelling;  // physics (SI unit, synonyms)
   }
-  // lbf·in is not accepted (not in the input contract); it must not be guessed.
-  EXPECT_FALSE(LookUpUnit(Quantity::kTorque, "lbf*in").has_value());  // common practice (never guess)
+  EXPECT_EQ(FactorOf(Quantity::kTorque, "lbf*in"), 1.129848e-1);       // NIST SP 811, Appendix B: lbf·in
+  // Spellings outside the table are not guessed.
+  EXPECT_FALSE(LookUpUnit(Quantity::kTorque, "lbfin").has_value());   // common practice (never guess)
+  EXPECT_FALSE(LookUpUnit(Quantity::kTorque, "lb*in").has_value());   // a mass·length, not a torque
 }
 
 TEST(TemperatureUnits, KelvinBecomesCelsius) {
