@@ -309,7 +309,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   double peak_current_A = 0.0;
   for (const auto& t : tests)
     for (double i : t.log.current_A) peak_current_A = std::max(peak_current_A, std::fabs(i));
-  const CurrentZero current_zero = FindCurrentZero(lr, sd, st, peak_current_A);
+  const CurrentZero current_zero = FindCurrentZero(lr, sd, st, peak_current_A, options.one_current_sensor);
   AddCurrentZero(current_zero, &parameters);
   locked_rotor::AddLockedRotor(&lr, &parameters);
   no_load::AddNoLoad(&nl, kt_name, &parameters);

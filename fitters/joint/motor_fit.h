@@ -66,6 +66,9 @@ struct MotorFitOptions {
   // the noise levels then agree with the residuals to well within their spread).
   int max_solver_iterations = core::SolveOptions().max_iterations;
   int group_sigma_rounds = 3;
+  // Every log's current comes through one sensor (sensor_offsets.h): its zero reading,
+  // seen in one log, corrects all. False: the sensors differ and no log corrects another.
+  bool one_current_sensor = true;
 
   bool IsValid(std::string* error) const;
 };

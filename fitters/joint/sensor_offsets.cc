@@ -22,8 +22,10 @@ constexpr const char* kCurrentDependent[] = {"resistance", "brush_drop", "viscou
 }  // namespace
 
 CurrentZero FindCurrentZero(const locked_rotor::LockedRotorPlan& lr, const spin_down::SpinDownPlan& sd,
-                            const step::StepTestPlan& st, double peak_current_A) {
+                            const step::StepTestPlan& st, double peak_current_A, bool one_sensor) {
   CurrentZero zero;
+  zero.one_sensor = one_sensor;
+  if (!one_sensor) return zero;
   if (sd.shows_current_at_zero) {
     zero.sources.push_back("the spin-down's coast with open terminals");
     zero.start_A = sd.zero_current_start_A;
@@ -58,8 +60,11 @@ void ReportCurrentZero(const CurrentZero& zero, const core::SharedParameters& pa
   }
   if (zero.seen) return;
   const std::string assumption =
-      "the current sensor reads 0 A at zero current: no log shows the current at zero to measure its offset (a "
-      "spin-down with the current logged, or a capture or step from 0 V, would)";
+      zero.one_sensor
+          ? "the current sensor reads 0 A at zero current: no log shows the current at zero to measure its offset "
+            "(a spin-down with the current logged, or a capture or step from 0 V, would)"
+          : "each log's current sensor reads 0 A at zero current: the session says the logs' sensors differ, so an "
+            "offset seen in one log cannot correct another (zero each sensor at open circuit before logging)";
   for (auto& q : estimate->parameters)
     if (std::find(std::begin(kCurrentDependent), std::end(kCurrentDependent), q.key) != std::end(kCurrentDependent))
       q.assumes.push_back(assumption);

@@ -25,11 +25,14 @@ struct CurrentZero {
   double start_A = 0.0;              // its starting value (a coast's median reading, else 0)
   double scale_A = 1.0;              // its typical magnitude, for the solver's scaling
   std::vector<std::string> sources;  // where it was seen, in words
+  bool one_sensor = true;            // false: the session's logs come through different sensors
 };
 
 // What the plans show of the current at zero; `peak_current_A` is the largest |i| logged.
+// With `one_sensor` false an offset seen in one log says nothing of another's sensor:
+// i_z is held at 0 and every current-dependent parameter says so.
 CurrentZero FindCurrentZero(const locked_rotor::LockedRotorPlan& lr, const spin_down::SpinDownPlan& sd,
-                            const step::StepTestPlan& st, double peak_current_A);
+                            const step::StepTestPlan& st, double peak_current_A, bool one_sensor = true);
 
 // Adds i_z to the problem before any test asks for it (estimated, or held at 0).
 void AddCurrentZero(const CurrentZero& zero, core::SharedParameters* parameters);

@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
+#include <string>
 
 namespace coilspin::locked_rotor {
 namespace {
@@ -45,13 +47,38 @@ CaptureClassification ClassifyCapture(const BenchLog& log) {
   const std::size_t after_begin = level_end - std::max<std::size_t>(1, level_samples / kFinalPartDivisor);
   const double current_after_A = MeanOver(log.current_A, after_begin, level_end);
   const double change_A = current_after_A - current_before_A;
-  if (std::fabs(change_A) <= kNonZeroCurrentSigmas * NoiseFromDifferences(log.current_A)) return result;
+  result.onset = k0;
+  result.current_change_A = change_A;
+  result.current_noise_A = NoiseFromDifferences(log.current_A);
+  result.rule = PlateauRule::kNoCurrentChange;
+  if (std::fabs(change_A) <= kNonZeroCurrentSigmas * result.current_noise_A) return result;
   std::size_t k = k0 + 1;
   while (k < level_end && std::fabs(log.current_A[k] - current_before_A) < kOneTimeConstantFraction * std::fabs(change_A)) ++k;
-  result.onset = k0;
   result.rise_samples = static_cast<double>(k - k0);
+  result.rule = PlateauRule::kRiseTooCoarse;
   if (result.rise_samples >= kMinSamplesPerTimeConstant) result.kind = CaptureKind::kStep;
   return result;
+}
+
+std::string PlateauRuleText(const CaptureClassification& c) {
+  const auto number = [](const char* format, double value) {
+    char text[64];
+    std::snprintf(text, sizeof text, format, value);
+    return std::string(text);
+  };
+  switch (c.rule) {
+    case PlateauRule::kNoVoltageStep:
+      return "read as plateaus: no voltage step stands out of the noise";
+    case PlateauRule::kNoCurrentChange:
+      return "read as plateaus: across the voltage step at sample " + std::to_string(c.onset + 1) +
+             " the current changes by " + number("%.4g", c.current_change_A) + " A, within " +
+             number("%.0f", kNonZeroCurrentSigmas) + " noise sigma (" + number("%.4g", c.current_noise_A) + " A)";
+    case PlateauRule::kRiseTooCoarse:
+      return "read as plateaus: the current's rise after the voltage step at sample " + std::to_string(c.onset + 1) +
+             " takes " + number("%.0f", c.rise_samples) + " samples per time constant; a step capture needs " +
+             number("%.0f", kMinSamplesPerTimeConstant);
+  }
+  return "read as plateaus";
 }
 
 std::vector<LockedPlateau> FindLockedPlateaus(const BenchLog& log, const PlateauOptions& options) {

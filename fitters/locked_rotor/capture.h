@@ -19,11 +19,24 @@ namespace coilspin::locked_rotor {
 
 enum class CaptureKind { kPlateaus, kStep };
 
+// Which rule made a log a plateau log rather than a step capture.
+enum class PlateauRule {
+  kNoVoltageStep,     // no voltage step stands out of the noise (FindStepOnset)
+  kNoCurrentChange,   // the current's change across the step is within 5 noise σ
+  kRiseTooCoarse,     // the rise is resolved by fewer than kMinSamplesPerTimeConstant samples
+};
+
 struct CaptureClassification {
   CaptureKind kind = CaptureKind::kPlateaus;
-  std::size_t onset = 0;            // sample where the voltage step begins (step captures)
+  PlateauRule rule = PlateauRule::kNoVoltageStep;  // for plateau logs
+  std::size_t onset = 0;            // sample where the voltage step begins
   double rise_samples = 0.0;        // samples from onset until the current covers 63 % of its change
+  double current_change_A = 0.0;    // the current's change across the step
+  double current_noise_A = 0.0;     // its noise σ (differences)
 };
+
+// Why a plateau log is not a step capture, with the numbers (for the test's summary).
+std::string PlateauRuleText(const CaptureClassification& c);
 
 // A current rise resolved by at least this many samples per time constant is a
 // step capture (common practice: 10 samples per time constant). Coarser logs

@@ -109,6 +109,7 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
     } else {
       PlateauLog pl;
       pl.log = log;
+      pl.classification = c;
       pl.plateaus = FindLockedPlateaus(*log, options.plateaus);
       plan.plateau_logs.push_back(pl);
     }
@@ -182,7 +183,8 @@ LockedRotorPlan PlanLockedRotor(const std::vector<const BenchLog*>& logs, const 
     plan.summary_index.push_back(estimate->tests.size());
     estimate->tests.push_back({kTest, pl.log->path, static_cast<long>(pl.log->size()),
                                "plateaus: " + std::to_string(pl.plateaus.size()) + " settled levels with current" +
-                                   (pl.plateaus.empty() || !pl.plateaus.front().has_torque ? "" : ", torque logged"),
+                                   (pl.plateaus.empty() || !pl.plateaus.front().has_torque ? "" : ", torque logged") +
+                                   " (" + PlateauRuleText(pl.classification) + ")",
                                {}, {}, {}, {}});
     if (pl.plateaus.empty()) {
       const std::string text = pl.log->path + ": no settled plateau with current was found";

@@ -50,6 +50,7 @@ struct LockedRotorOptions {
 struct PlateauLog {
   const BenchLog* log = nullptr;
   std::vector<LockedPlateau> plateaus;
+  CaptureClassification classification;  // why it is a plateau log (capture.h)
   std::vector<double> factors;  // f_j
   int voltage_group = -1;
   int torque_group = -1;

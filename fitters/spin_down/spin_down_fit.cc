@@ -17,7 +17,6 @@ namespace {
 
 constexpr const char* kTest = "spin-down";
 // A coast needs this many samples between power-off and rest to fit ω₀, b, c with a margin.
-constexpr std::size_t kMinCoastSamples = 20;
 // After power off the current is read as zero from this many samples on: opening
 // the circuit ends it within a sample, and one more keeps the switching edge out
 // (common practice).
@@ -62,18 +61,21 @@ SpinDownPlan PlanSpinDown(const std::vector<const BenchLog*>& logs, std::optiona
     const bool fit_position = log->speed_rad_s.empty();
     std::vector<double> speed;  // for segmentation, start values and the direction
     std::optional<CoastSegment> segment;
+    NoCoast why;
     if (fit_position) {
       SpeedFromPositionOptions differentiation;
       if (position_step_rad) differentiation.counts_per_rev = units::kRadiansPerRevolution / *position_step_rad;
       DerivedSpeed derived = SpeedFromPosition(log->time_s, log->position_rad, differentiation);
       speed = std::move(derived.speed_rad_s);
-      segment = FindCoast(*log, speed, derived.noise_sigma_rad_s);
+      segment = FindCoast(*log, speed, derived.noise_sigma_rad_s, &why);
     } else {
       speed = log->speed_rad_s;
-      segment = FindCoast(*log);
+      segment = FindCoast(*log, &why);
     }
+    if (segment && segment->rest <= segment->power_off + kMinCoastSamples)
+      why = {NoCoastRule::kCoastTooShort, segment->rest - segment->power_off, kMinCoastSamples + 1, 0.0, 0.0};
     if (!segment || segment->rest <= segment->power_off + kMinCoastSamples) {
-      warn("no coast of " + std::to_string(kMinCoastSamples) + " samples or more found after a power-off");
+      warn(NoCoastText(why));
       summary.method = "not used: no coast found";
       continue;
     }

@@ -87,6 +87,10 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--seed", a->seed, "Bootstrap seed (fixed by default, so results are reproducible)");
   c->add_option("--robust", a->robust, "Robust loss for logs with spikes: huber or cauchy (reported in the result)")
       ->check(CLI::IsMember({"huber", "cauchy"}));
+  c->add_option("--current-sensors", a->current_sensors,
+                "one (default): every log's current comes through one sensor, whose zero reading seen in one log "
+                "corrects all; per-log: the logs' current sensors differ")
+      ->check(CLI::IsMember({"one", "per-log"}));
   c->add_option("--noise", a->noise_specs,
                 "Noise sigma of a logged channel, in SI units, instead of the one estimated from the data, e.g. "
                 "--noise current=0.004 (applies to channels fitted sample by sample); repeatable");
@@ -154,6 +158,9 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
   if ((a.replicates || a.seed) && options.intervals.method != joint::IntervalMethod::kBootstrap)
     throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--replicates and --seed apply to --intervals bootstrap only");
   if (!a.robust.empty()) options.loss = *core::RobustLossFromString(a.robust);
+  const std::string current_sensors =
+      !a.current_sensors.empty() ? a.current_sensors : session && session->current_sensors ? *session->current_sensors : "one";
+  options.one_current_sensor = current_sensors == "one";
   std::vector<std::pair<std::string, std::string>> estimate_settings_noise;
   for (const auto& [quantity, text] : ParseQuantityMap(a.noise_specs, "--noise")) {
     char* end = nullptr;
@@ -205,6 +212,7 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
     estimate.settings.push_back({"bootstrap_seed", std::to_string(options.intervals.seed)});
   }
   estimate.settings.push_back({"robust_loss", a.robust.empty() ? "none" : a.robust});
+  estimate.settings.push_back({"current_sensors", current_sensors});
   if (options.locked_rotor.winding_temperature_degC)
     estimate.settings.push_back({"winding_temperature_degC", Text(*options.locked_rotor.winding_temperature_degC)});
   if (options.locked_rotor.reference_temperature_degC)

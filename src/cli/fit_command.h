@@ -32,6 +32,7 @@ struct FitArguments {
   std::optional<int> replicates;          // bootstrap
   std::optional<unsigned long long> seed; // bootstrap
   std::string robust;                     // "" | huber | cauchy
+  std::string current_sensors;            // "" | one | per-log (session [bench] current_sensors)
   std::vector<std::string> noise_specs;   // channel=sigma (SI)
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
@@ -59,7 +60,8 @@ int RunFitCommand(FitArguments arguments, std::ostream& out);
 // the batch share. `result_name` names the motor in the verification.
 struct FitOutcome {
   MotorEstimate estimate;
-  std::vector<std::pair<std::string, std::string>> undetermined;  // key, reason (exit status 1)
+  // A --require key or log, and the sentence that says why the exit status is 1.
+  std::vector<std::pair<std::string, std::string>> undetermined;
   std::optional<verify::Verification> verification;
 };
 FitOutcome FitOneMotor(const FitArguments& arguments, const verify::Datasheet* sheet, const std::string& result_name);

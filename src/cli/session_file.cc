@@ -104,12 +104,19 @@ Session LoadSession(const std::string& path) {
   }
   if (const toml::table* bench = root["bench"].as_table()) {
     RejectUnknownKeys(path, *bench, "[bench]",
-                      {"encoder_cpr", "gear_ratio", "winding_temperature", "reference_temperature", "known_inertia"});
+                      {"encoder_cpr", "gear_ratio", "winding_temperature", "reference_temperature", "known_inertia",
+                       "current_sensors"});
     session.counts_per_rev = Number(path, *bench, "encoder_cpr");
     session.gear_ratio = Number(path, *bench, "gear_ratio");
     session.winding_temperature_degC = Number(path, *bench, "winding_temperature");
     session.reference_temperature_degC = Number(path, *bench, "reference_temperature");
     session.known_inertia_kg_m2 = Number(path, *bench, "known_inertia");
+    if (const toml::node* sensors = bench->get("current_sensors")) {
+      const std::optional<std::string> word = sensors->value<std::string>();
+      if (!word || (*word != "one" && *word != "per-log"))
+        Fail(path, sensors->source(), "current_sensors is \"one\" or \"per-log\"");
+      session.current_sensors = word;
+    }
   }
   if (const toml::table* fit = root["fit"].as_table()) {
     RejectUnknownKeys(path, *fit, "[fit]", {"confidence"});

@@ -35,6 +35,7 @@ struct Session {
   std::optional<double> winding_temperature_degC;
   std::optional<double> reference_temperature_degC;
   std::optional<double> known_inertia_kg_m2;
+  std::optional<std::string> current_sensors;  // "one" | "per-log"
   std::optional<double> confidence;
   std::vector<SessionTest> tests;
 };

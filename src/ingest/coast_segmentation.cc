@@ -69,8 +69,6 @@ constexpr double kRunDriftFraction = 0.02;
 constexpr std::size_t kLevelSamples = 32;
 // Fewer run samples than this before the fall: no run level to speak of (common practice).
 constexpr std::size_t kMinRunSamples = 8;
-// A coast shorter than this cannot be fitted (RequireForTest's spin-down minimum).
-constexpr std::size_t kMinCoastSamples = 20;
 // Straight lines through the start of the fall and the approach to rest use the
 // samples within 16 σ beyond the band (slope to ~1/16 of the band per sample's
 // noise), but at most 5 % of the run speed deep: dω/dt = −(B/J)·(ω + Tc/B) then
@@ -182,9 +180,14 @@ std::size_t ForwardWhileAbove(const std::vector<double>& u, std::size_t begin, d
 }
 
 std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const std::vector<double>& speed_rad_s,
-                                      std::optional<double> speed_sigma_rad_s) {
+                                      std::optional<double> speed_sigma_rad_s, NoCoast* why) {
   const std::size_t n = speed_rad_s.size();
-  if (n < kMinRunSamples + kMinCoastSamples) return std::nullopt;
+  const auto refuse = [why](NoCoast reason) {
+    *why = reason;
+    return std::nullopt;
+  };
+  if (n < kMinRunSamples + kMinCoastSamples)
+    return refuse({NoCoastRule::kTooFewSamples, n, kMinRunSamples + kMinCoastSamples, 0.0, 0.0});
   SpeedView view;
   // Direction: the sign at the largest |ω| held for two samples (a lone spike is no run).
   double held = 0.0;
@@ -196,7 +199,7 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
       at = k;
     }
   }
-  if (!(held > 0.0)) return std::nullopt;
+  if (!(held > 0.0)) return refuse({NoCoastRule::kNeverTurns, n, 0, 0.0, 0.0});
   view.direction = speed_rad_s[at] < 0.0 ? -1.0 : 1.0;
   view.forward.resize(n);
   for (std::size_t k = 0; k < n; ++k) view.forward[k] = view.direction * speed_rad_s[k];
@@ -217,7 +220,8 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   const double coarse_level = Median(std::move(top));
   std::size_t coarse = n;
   while (coarse > 0 && u[coarse - 1] < coarse_level - allowance) --coarse;
-  if (coarse == 0 || coarse + kMinCoastSamples > n) return std::nullopt;
+  if (coarse == 0 || coarse + kMinCoastSamples > n)
+    return refuse({NoCoastRule::kNoFall, n - coarse, kMinCoastSamples, coarse_level, allowance});
   view.depth = std::min(kLineDepthSigmas * view.sigma, kLineMaxDepthFraction * coarse_level);
 
   // Fine: the level is re-read from the samples before the fall reached the
@@ -226,7 +230,8 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   // over-estimates the time that took.
   const std::size_t fall_end = ForwardWhileAbove(u, coarse, coarse_level - allowance - view.depth);
   const std::optional<Line> fall = FitLine(time_s, u, coarse, fall_end);
-  if (!fall || !(fall->slope_per_s < 0.0)) return std::nullopt;
+  if (!fall || !(fall->slope_per_s < 0.0))
+    return refuse({NoCoastRule::kFallNotDown, fall_end - coarse, 0, fall ? fall->slope_per_s : 0.0, 0.0});
   const double fall_time_s = allowance / -fall->slope_per_s;
   view.level_end = FirstSampleAtOrAfter(time_s, time_s[coarse] - kFallTimeMargin * fall_time_s, 0, coarse);
   // A slow coast after a short run: the margin reaches back past the run's start, while the
@@ -236,9 +241,10 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
     // No run before the fall: the logger was started after the supply was cut. The
     // shaft must already be slowing over the first samples (a straight line through
     // them falls by more than the noise band), else this is no coast.
-    const std::optional<Line> start = FitLine(time_s, u, 0, std::min(n, kLineMaxSamples));
-    if (!start || !(-start->slope_per_s * (time_s[std::min(n, kLineMaxSamples) - 1] - time_s[0]) > view.band))
-      return std::nullopt;
+    const std::size_t first = std::min(n, kLineMaxSamples);
+    const std::optional<Line> start = FitLine(time_s, u, 0, first);
+    const double drop = start ? -start->slope_per_s * (time_s[first - 1] - time_s[0]) : 0.0;
+    if (!(drop > view.band)) return refuse({NoCoastRule::kNoRunNoSlowing, first, 0, drop, view.band});
     view.starts_in_coast = true;
     view.run_level = u[0];
     return view;
@@ -396,20 +402,59 @@ std::string_view PowerOffEvidenceText(PowerOffEvidence evidence) {
   return "";
 }
 
-std::optional<CoastSegment> FindCoast(const BenchLog& log) {
-  if (!log.speed_rad_s.empty()) return FindCoast(log, log.speed_rad_s);
-  if (log.position_rad.empty() || log.size() < kMinRunSamples + kMinCoastSamples) return std::nullopt;
+std::string NoCoastText(const NoCoast& why) {
+  const std::string count = std::to_string(why.count);
+  const std::string needed = std::to_string(why.needed);
+  switch (why.rule) {
+    case NoCoastRule::kNoSpeed:
+      return "no coast: the log has neither speed nor position";
+    case NoCoastRule::kTooFewSamples:
+      return "no coast: " + count + " samples, fewer than the " + needed + " a run and a coast need";
+    case NoCoastRule::kNeverTurns:
+      return "no coast: the speed is 0 in all " + count + " samples";
+    case NoCoastRule::kNoFall:
+      return "no coast: the speed stays within " + Format("%.4g", why.limit) + " rad/s of its run level " +
+             Format("%.4g", why.value) + " rad/s until " + count + " samples before the end, fewer than the " +
+             needed + " a coast needs";
+    case NoCoastRule::kFallNotDown:
+      return "no coast: the speed leaves its run level but a straight line through the next " + count +
+             " samples does not fall (slope " + Format("%.4g", why.value) + " rad/s^2)";
+    case NoCoastRule::kNoRunNoSlowing:
+      return "no coast: no run level before the fall, and the first " + count + " samples fall by " +
+             Format("%.4g", why.value) + " rad/s, not more than the noise band " + Format("%.4g", why.limit) +
+             " rad/s";
+    case NoCoastRule::kCoastTooShort:
+      return "no coast: " + count + " samples from power off to rest, fewer than the " + needed +
+             " a fit needs";
+  }
+  return "no coast";
+}
+
+std::optional<CoastSegment> FindCoast(const BenchLog& log, NoCoast* why) {
+  NoCoast ignored;
+  if (why == nullptr) why = &ignored;
+  if (!log.speed_rad_s.empty()) return FindCoast(log, log.speed_rad_s, std::nullopt, why);
+  if (log.position_rad.empty()) {
+    *why = {NoCoastRule::kNoSpeed, 0, 0, 0.0, 0.0};
+    return std::nullopt;
+  }
+  if (log.size() < kMinRunSamples + kMinCoastSamples) {
+    *why = {NoCoastRule::kTooFewSamples, log.size(), kMinRunSamples + kMinCoastSamples, 0.0, 0.0};
+    return std::nullopt;
+  }
   const DerivedSpeed derived = SpeedFromPosition(log.time_s, log.position_rad);
-  return FindCoast(log, derived.speed_rad_s, derived.noise_sigma_rad_s);
+  return FindCoast(log, derived.speed_rad_s, derived.noise_sigma_rad_s, why);
 }
 
 std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<double>& speed_rad_s,
-                                      std::optional<double> speed_sigma_rad_s) {
+                                      std::optional<double> speed_sigma_rad_s, NoCoast* why) {
+  NoCoast ignored;
+  if (why == nullptr) why = &ignored;
   const std::size_t n = log.size();
   if (speed_rad_s.size() != n) throw std::invalid_argument("FindCoast: the speed must have one value per time sample");
   CheckLength(log.current_A, n, "current");
   CheckLength(log.voltage_V, n, "voltage");
-  const std::optional<SpeedView> view = AnalyseSpeed(log.time_s, speed_rad_s, speed_sigma_rad_s);
+  const std::optional<SpeedView> view = AnalyseSpeed(log.time_s, speed_rad_s, speed_sigma_rad_s, why);
   if (!view) return std::nullopt;
 
   CoastSegment coast;

@@ -77,16 +77,44 @@ struct CoastSegment {
   std::size_t size() const { return rest - power_off; }
 };
 
+// Why a log holds no coast: the rule that found none, with its numbers.
+enum class NoCoastRule {
+  kNoSpeed,          // neither speed nor position logged
+  kTooFewSamples,    // count < needed (a run and a coast of the minimum lengths)
+  kNeverTurns,       // |ω| is 0 throughout
+  kNoFall,           // the speed never leaves its run level (value: run level, limit: allowance)
+                     // with `needed` samples after it: count = samples after the last run-level sample
+  kFallNotDown,      // the straight line through the start of the fall does not fall
+  kNoRunNoSlowing,   // no run level, and the first samples do not fall by more than the band
+                     // (value: their fall, limit: the band)
+  kCoastTooShort,    // power off to rest: count < needed
+};
+
+struct NoCoast {
+  NoCoastRule rule = NoCoastRule::kNoSpeed;
+  std::size_t count = 0;
+  std::size_t needed = 0;
+  double value = 0.0;  // in the speed's SI unit, rad/s, where the rule compares speeds
+  double limit = 0.0;
+};
+
+// One sentence naming the rule and its numbers (for the log's warning).
+std::string NoCoastText(const NoCoast& why);
+
+// A coast shorter than this cannot be fitted (RequireForTest's spin-down minimum).
+inline constexpr std::size_t kMinCoastSamples = 20;
+
 // Uses the speed channel; a log with position only is differentiated with
 // SpeedFromPosition's defaults (encoder_speed.h). Empty when the log has
-// neither, or no coast from a run level.
-std::optional<CoastSegment> FindCoast(const BenchLog& log);
+// neither, or no coast from a run level; then `why`, when given, says which rule.
+std::optional<CoastSegment> FindCoast(const BenchLog& log, NoCoast* why = nullptr);
 
 // With the speed given (e.g. derived from position) and, optionally, its noise
 // σ (a filtered speed's σ is not visible in its differences). Throws
 // std::invalid_argument when a channel's length differs from the log's.
 std::optional<CoastSegment> FindCoast(const BenchLog& log, const std::vector<double>& speed_rad_s,
-                                      std::optional<double> speed_sigma_rad_s = std::nullopt);
+                                      std::optional<double> speed_sigma_rad_s = std::nullopt,
+                                      NoCoast* why = nullptr);
 
 // Current during the coast: its median over the coast's first quarter departs
 // from the sensor's zero reading by more than the noise band. A braking current

@@ -89,6 +89,17 @@ std::vector<std::pair<std::size_t, std::size_t>> SplitLevels(const std::vector<d
   return levels;
 }
 
+// The smallest |x[k+1] − x[k]| above `rounding`: one reading step of a quantised
+// channel, a negligible amount on a noisy one; 0 when no reading changes.
+double FinestChange(const std::vector<double>& x, double rounding) {
+  double finest = std::numeric_limits<double>::infinity();
+  for (std::size_t k = 0; k + 1 < x.size(); ++k) {
+    const double change = std::abs(x[k + 1] - x[k]);
+    if (change > rounding) finest = std::min(finest, change);
+  }
+  return std::isfinite(finest) ? finest : 0.0;
+}
+
 }  // namespace
 
 double NoiseFromDifferences(const std::vector<double>& signal) {
@@ -118,7 +129,14 @@ std::vector<Plateau> FindPlateaus(const std::vector<double>& level,
   const double rounding = kRoundingUlps * std::numeric_limits<double>::epsilon() * magnitude;
   const double threshold = std::max({options.threshold_sigmas * sigma, options.min_relative_step * range, rounding,
                                      kLevelChangeSteps * noise.step});
-  const double edge_band = std::max(kLevelEdgeSigmas * sigma, rounding);
+  // A reading toggling between neighbouring codes stays on its level at the edge too.
+  // Noise under a coarse ADC's step rarely changes a reading: the differences are
+  // mostly 0, σ comes out near 0 and, with too few codes to show the step
+  // (noise_level.h), 4 σ was smaller than every reading's distance from the level's
+  // mean, so levels were trimmed back to their first sample (10 mV steps on 2 mV of
+  // noise lost half the plateaus). The finest change between readings bounds it.
+  const double edge_band = std::max({kLevelEdgeSigmas * sigma, rounding, kLevelChangeSteps * noise.step,
+                                     kLevelChangeSteps * FinestChange(level, rounding)});
 
   std::vector<Plateau> plateaus;
   for (const auto& [begin, end] : SplitLevels(level, threshold, edge_band)) {

@@ -29,6 +29,9 @@
 //   coverage_bench real-nostep [benches per motor, default 25]
 //       The same without steps: locked-rotor plateaus, no-load and spin-down
 //       only (no capture, no free-shaft step); L is not scored.
+//   coverage_bench joint|real|real-nostep N wald|profile|bootstrap
+//       The same with the named interval method (default wald; bootstrap:
+//       kBootstrapReplicates replicates).
 //   coverage_bench N          the same as `coverage_bench joint N` (older form).
 // Motors and benches: coverage_motors.h, coverage_real_rig.h; tallies and tables: coverage_tally.h.
 

@@ -287,15 +287,31 @@ TEST(FindCoast, EncoderPositionOnly) {
 TEST(FindCoast, NoCoastNoMotionAndBadLengths) {
   // coast_segmentation.h: empty without a fall from a run level or without
   // speed or position; std::invalid_argument for channels of other lengths.
+  // `why` names the rule that found none, with its numbers (issue 9: the message
+  // says which rule rejected the log).
   Bench bench;
   bench.power_off_s = 10.0;  // never switched off within the 4.5 s log
-  EXPECT_FALSE(FindCoast(MakeSpinDown(bench, 1).log).has_value());
+  NoCoast why;
+  EXPECT_FALSE(FindCoast(MakeSpinDown(bench, 1).log, &why).has_value());
+  EXPECT_EQ(why.rule, NoCoastRule::kNoFall);
+  EXPECT_LT(why.count, why.needed);
+  EXPECT_NEAR(why.value, 300.0, 1.0);  // the run level, ω∞ ≈ 300 rad/s (the bench's comment)
+  EXPECT_NE(NoCoastText(why).find("stays within"), std::string::npos) << NoCoastText(why);
   BenchLog still;
   still.time_s = std::vector<double>(100, 0.0);
   for (std::size_t k = 0; k < 100; ++k) still.time_s[k] = 1e-3 * static_cast<double>(k);
-  EXPECT_FALSE(FindCoast(still).has_value());  // neither speed nor position
+  EXPECT_FALSE(FindCoast(still, &why).has_value());  // neither speed nor position
+  EXPECT_EQ(why.rule, NoCoastRule::kNoSpeed);
   still.speed_rad_s = std::vector<double>(100, 0.0);
-  EXPECT_FALSE(FindCoast(still).has_value());  // never turns
+  EXPECT_FALSE(FindCoast(still, &why).has_value());  // never turns
+  EXPECT_EQ(why.rule, NoCoastRule::kNeverTurns);
+  EXPECT_EQ(NoCoastText(why), "no coast: the speed is 0 in all 100 samples");
+  BenchLog few;
+  few.time_s = {0.0, 1e-3, 2e-3};
+  few.speed_rad_s = {5.0, 4.0, 3.0};
+  EXPECT_FALSE(FindCoast(few, &why).has_value());
+  EXPECT_EQ(why.rule, NoCoastRule::kTooFewSamples);
+  EXPECT_EQ(why.count, 3u);
   EXPECT_THROW(FindCoast(still, std::vector<double>(99, 0.0)), std::invalid_argument);
   still.current_A = std::vector<double>(50, 0.0);
   EXPECT_THROW(FindCoast(still), std::invalid_argument);

@@ -143,6 +143,27 @@ TEST(FindPlateaus, SpreadIsTheNoiseAndALoneSpikeDoesNotSplitALevel) {
   EXPECT_NEAR(plateaus[1].channels[1].std_dev, 0.01, 0.001);
 }
 
+TEST(FindPlateaus, CoarseAdcWithNoiseUnderAStepKeepsEveryLevel) {
+  // 10 mV readings of 2 mV noise on levels of 1, 2, 3, 4, −2, −3 V, 300 samples each:
+  // few readings change, so σ from differences is about 0 and the step is not seen
+  // (too few codes, noise_level.h); no level may be trimmed to its first sample
+  // (issue 9: half the plateaus were lost). Each plateau's mean is the level to
+  // within a reading step (rounding error ≤ q/2; statistics handbook).
+  std::mt19937_64 random(17);
+  std::normal_distribution<double> noise(0.0, 0.002);
+  const double step_V = 0.01;
+  std::vector<double> v;
+  for (double level : {1.0, 2.0, 3.0, 4.0, -2.0, -3.0})
+    for (int k = 0; k < 300; ++k) v.push_back(step_V * std::round((level + noise(random)) / step_V));
+  const auto plateaus = FindPlateaus(v, {&v}, {});
+  ASSERT_EQ(plateaus.size(), 6u);
+  const double levels[] = {1.0, 2.0, 3.0, 4.0, -2.0, -3.0};
+  for (std::size_t p = 0; p < plateaus.size(); ++p) {
+    EXPECT_GT(plateaus[p].size(), 200u);  // 300 less the settling quarter
+    EXPECT_NEAR(plateaus[p].channels[0].mean, levels[p], step_V / 2);
+  }
+}
+
 TEST(FindPlateaus, ChecksItsArguments) {
   const std::vector<double> level(20, 1.0);
   const std::vector<double> shorter(19, 1.0);
