@@ -82,5 +82,14 @@ TEST(FindCoast, TimesAndSpeedsAtTheEdgeOfTheRange) {
   EXPECT_TRUE(FindCoast(Coast(1.0, 100.0)).has_value());
 }
 
+TEST(FindCoast, SpeedsWhoseNoiseBandOverflowsSayWhy) {
+  // Times scaled by 1e-300 make the position's differences ~1e300 rad/s apart: their
+  // noise band is beyond the range of a double, and the warning says so (not "no speed").
+  NoCoast why;
+  EXPECT_FALSE(FindCoast(Coast(1e-300, 1e300), &why).has_value());
+  EXPECT_EQ(why.rule, NoCoastRule::kNotFinite);
+  EXPECT_NE(NoCoastText(why).find("beyond the range of a double"), std::string::npos) << NoCoastText(why);
+}
+
 }  // namespace
 }  // namespace coilspin
