@@ -136,7 +136,11 @@ TextFile OpenTextFile(const std::string& path) {
     throw InputError(InputErrorKind::kCannotOpen, path, 0, 0,
                      std::string("cannot open: ") + std::strerror(errno));
   }
-  std::vector<char> block(kFirstBlockBytes);
+  // The first block, or the whole file when it is shorter (no 64 KiB cleared for a short log).
+  std::error_code size_error;
+  const auto size = std::filesystem::file_size(path, size_error);
+  const std::size_t file_bytes = size_error ? 0 : static_cast<std::size_t>(size);
+  std::vector<char> block(file_bytes > 0 ? std::min(kFirstBlockBytes, file_bytes + 1) : kFirstBlockBytes);
   const std::size_t got = std::fread(block.data(), 1, block.size(), file.get());
   if (got < block.size() && std::ferror(file.get())) {
     throw InputError(InputErrorKind::kCannotOpen, path, 0, 0,
@@ -150,9 +154,7 @@ TextFile OpenTextFile(const std::string& path) {
   CheckIsText(path, block);
 
   TextFile text;
-  std::error_code size_error;
-  const auto size = std::filesystem::file_size(path, size_error);
-  text.file_bytes = size_error ? 0 : static_cast<std::size_t>(size);
+  text.file_bytes = file_bytes;
   text.first_block_bytes = block.size();
   text.first_block_lines = CountLineEnds(block);
   text.source = std::make_unique<CheckedFileSource>(path, std::move(file), std::move(block));
