@@ -218,10 +218,6 @@ BootstrapResult Bootstrap(const LeastSquaresProblem& problem, const FitResult& f
       }
     });
   }
-  const auto start = std::chrono::steady_clock::now();
-  const auto elapsed = [&start] {
-    return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-  };
   {
     std::unique_lock<std::mutex> lock(mutex);
     while (done < options.replicates) {
@@ -230,13 +226,13 @@ BootstrapResult Bootstrap(const LeastSquaresProblem& problem, const FitResult& f
       if (options.progress && done < options.replicates) {
         const int so_far = done;
         lock.unlock();
-        options.progress(so_far, options.replicates, elapsed());
+        options.progress(ProgressStage::kBootstrapReplicates, so_far, options.replicates);
         lock.lock();
       }
     }
   }
   for (std::thread& worker : workers) worker.join();
-  if (options.progress) options.progress(options.replicates, options.replicates, elapsed());
+  ReportProgress(options.progress, ProgressStage::kBootstrapReplicates, options.replicates, options.replicates);
 
   for (int b = 0; b < options.replicates; ++b) {
     auto& outcome = outcomes[static_cast<std::size_t>(b)];

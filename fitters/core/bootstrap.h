@@ -30,8 +30,7 @@
 // Threads and determinism. Replicates run on `threads` threads, each on its
 // own Clone() of the problem; replicate b depends only on (seed, b), so the
 // result is identical for any thread count. The core never prints: progress
-// goes to the optional callback, called on the calling thread
-// (bootstrap_progress.h has one for stderr).
+// goes to the optional callback (progress.h), called on the calling thread.
 
 #include <cstdint>
 #include <functional>
@@ -39,6 +38,7 @@
 #include <vector>
 
 #include "fitters/core/least_squares.h"
+#include "fitters/core/progress.h"
 
 namespace coilspin::core {
 
@@ -56,9 +56,9 @@ struct BootstrapOptions {
   std::uint64_t seed = kDefaultBootstrapSeed;
   int threads = 0;            // 0: std::thread::hardware_concurrency()
   double confidence = 0.95;   // two-sided percentile level c
-  // Called on the calling thread while replicates run (a few times a second)
-  // and once at the end with done == total; empty: silent.
-  std::function<void(int done, int total, double elapsed_seconds)> progress;
+  // ProgressStage::kBootstrapReplicates, on the calling thread while replicates
+  // run (a few times a second) and once at the end with done == total; empty: silent.
+  Progress progress;
 
   bool IsValid(std::string* error) const;
 };

@@ -54,33 +54,53 @@ int LeastSquaresProblem::AddParameter(const ParameterSpec& spec) {
   for (const auto& existing : parameters_) {
     Require(existing->spec.name != spec.name, "AddParameter: parameter names must be unique");
   }
-  Require(std::isfinite(spec.initial), "AddParameter: the starting value must be finite");
-  Require(std::isfinite(spec.scale) && spec.scale >= 0.0, "AddParameter: scale must be finite and not negative");
-  Require(!spec.lower || !spec.upper || *spec.lower < *spec.upper,
-          "AddParameter: the lower bound must lie below the upper bound");
-
   auto parameter = std::make_unique<Parameter>();
   parameter->spec = spec;
-  if (spec.scale > 0.0) {
-    parameter->scale = spec.scale;
-  } else {
-    parameter->scale = spec.initial != 0.0 ? std::abs(spec.initial) : 1.0;
+  ParameterSpec& kept = parameter->spec;  // with placeholders where the numbers cannot be used
+  if (!std::isfinite(spec.initial)) {
+    MarkUnusable("the starting value of '" + spec.name + "' is not a finite number (" + FormatNumber(spec.initial) +
+                 ")");
+    kept.initial = 0.0;
   }
-  parameter->scaled_value = spec.initial / parameter->scale;
+  if (!(std::isfinite(spec.scale) && spec.scale >= 0.0)) {
+    MarkUnusable("the scale of '" + spec.name + "' is not a finite number >= 0 (" + FormatNumber(spec.scale) + ")");
+    kept.scale = 0.0;
+  }
+  const bool finite_bounds = (!spec.lower || std::isfinite(*spec.lower)) && (!spec.upper || std::isfinite(*spec.upper));
+  if (!finite_bounds || (spec.lower && spec.upper && !(*spec.lower < *spec.upper))) {
+    MarkUnusable("the bounds of '" + spec.name + "' are not finite numbers in order");
+    kept.lower.reset();
+    kept.upper.reset();
+  }
+  const ParameterSpec& spec_used = kept;
+  if (spec_used.scale > 0.0) {
+    parameter->scale = spec_used.scale;
+  } else {
+    parameter->scale = spec_used.initial != 0.0 ? std::abs(spec_used.initial) : 1.0;
+  }
+  parameter->scaled_value = spec_used.initial / parameter->scale;
   double* x = &parameter->scaled_value;
   problem_->AddParameterBlock(x, 1);
-  if (spec.lower) problem_->SetParameterLowerBound(x, 0, *spec.lower / parameter->scale);
-  if (spec.upper) problem_->SetParameterUpperBound(x, 0, *spec.upper / parameter->scale);
-  if (spec.fixed) problem_->SetParameterBlockConstant(x);
+  if (spec_used.lower) problem_->SetParameterLowerBound(x, 0, *spec_used.lower / parameter->scale);
+  if (spec_used.upper) problem_->SetParameterUpperBound(x, 0, *spec_used.upper / parameter->scale);
+  if (spec_used.fixed) problem_->SetParameterBlockConstant(x);
   parameters_.push_back(std::move(parameter));
   return static_cast<int>(parameters_.size()) - 1;
 }
 
+void LeastSquaresProblem::MarkUnusable(const std::string& why) {
+  if (unusable_.empty()) unusable_ = why;
+}
+
 int LeastSquaresProblem::AddGroup(const GroupSpec& spec) {
-  Require(std::isfinite(spec.sigma) && spec.sigma > 0.0, "AddGroup: sigma must be positive and finite");
   auto group = std::make_unique<Group>();
   group->spec = spec;
-  group->sigma = spec.sigma;
+  if (!(std::isfinite(spec.sigma) && spec.sigma > 0.0)) {
+    MarkUnusable("the noise level of '" + spec.name + "' is not a finite number > 0 (" + FormatNumber(spec.sigma) +
+                 ")");
+    group->spec.sigma = 1.0;
+  }
+  group->sigma = group->spec.sigma;
   groups_.push_back(std::move(group));
   return static_cast<int>(groups_.size()) - 1;
 }
@@ -154,6 +174,7 @@ std::unique_ptr<LeastSquaresProblem> LeastSquaresProblem::Clone() const {
     clone->blocks_.back()->weighting.offsets = block->weighting.offsets;
   }
   clone->loss_ = loss_;
+  clone->unusable_ = unusable_;
   return clone;
 }
 
@@ -162,7 +183,10 @@ void LeastSquaresProblem::SetValues(const std::vector<double>& values) {
   for (std::size_t j = 0; j < values.size(); ++j) {
     Parameter& parameter = *parameters_[j];
     const ParameterSpec& spec = parameter.spec;
-    Require(std::isfinite(values[j]), "SetValues: values must be finite");
+    if (!std::isfinite(values[j])) {
+      MarkUnusable("the value set for '" + spec.name + "' is not a finite number (" + FormatNumber(values[j]) + ")");
+      continue;
+    }
     Require((!spec.lower || values[j] >= *spec.lower) && (!spec.upper || values[j] <= *spec.upper),
             "SetValues: a value lies outside its bounds");
     parameter.scaled_value = values[j] / parameter.scale;
@@ -173,7 +197,10 @@ void LeastSquaresProblem::SetValues(const std::vector<double>& values) {
 void LeastSquaresProblem::HoldAt(int parameter, double value) {
   double* x = ScaledValue(parameter);
   Parameter& held = *parameters_[static_cast<std::size_t>(parameter)];
-  Require(std::isfinite(value), "HoldAt: the value must be finite");
+  if (!std::isfinite(value)) {
+    MarkUnusable("the value '" + held.spec.name + "' is held at is not a finite number (" + FormatNumber(value) + ")");
+    return;
+  }
   Require((!held.spec.lower || value >= *held.spec.lower) && (!held.spec.upper || value <= *held.spec.upper),
           "HoldAt: the value lies outside the parameter's bounds");
   held.spec.fixed = true;
@@ -184,12 +211,17 @@ void LeastSquaresProblem::HoldAt(int parameter, double value) {
 
 void LeastSquaresProblem::SetGroupSigma(int group, double sigma) {
   Require(group >= 0 && group < static_cast<int>(groups_.size()), "SetGroupSigma: unknown group index");
-  Require(std::isfinite(sigma) && sigma > 0.0, "SetGroupSigma: sigma must be positive and finite");
+  if (!(std::isfinite(sigma) && sigma > 0.0)) {
+    MarkUnusable("the noise level of '" + groups_[static_cast<std::size_t>(group)]->spec.name +
+                 "' is not a finite number > 0 (" + FormatNumber(sigma) + ")");
+    return;
+  }
   groups_[static_cast<std::size_t>(group)]->sigma = sigma;
 }
 
 void LeastSquaresProblem::GiveGroupSigma(int group, double sigma) {
   SetGroupSigma(group, sigma);
+  if (!(std::isfinite(sigma) && sigma > 0.0)) return;  // unusable, as SetGroupSigma recorded
   Group& target = *groups_[static_cast<std::size_t>(group)];
   target.spec.sigma = sigma;
   target.spec.sigma_known = true;

@@ -65,6 +65,7 @@
 #include <vector>
 
 #include "fitters/core/input_noise_autocovariance.h"
+#include "fitters/core/progress.h"
 #include "fitters/core/quantisation.h"
 #include "fitters/core/robust_loss.h"
 
@@ -227,6 +228,14 @@ class LeastSquaresProblem {
   LeastSquaresProblem(const LeastSquaresProblem&) = delete;
   LeastSquaresProblem& operator=(const LeastSquaresProblem&) = delete;
 
+  // Numbers from data never abort: a starting value, scale or bound that is not
+  // a finite number (or bounds out of order), a σ_g that is not finite and > 0,
+  // and a non-finite value given to SetValues or HoldAt make the problem
+  // unusable instead (a placeholder is kept, so indices stay valid), and Solve
+  // then refuses with termination "NOT_RUN" and a message naming the parameter
+  // or group (the first such number). A fitter passes what it computed and
+  // reads the outcome. Misuse (an empty or repeated name, an unknown index)
+  // still aborts (require.h): that is a bug, never the data.
   int AddParameter(const ParameterSpec& spec);  // returns the parameter index
   int AddGroup(const GroupSpec& spec);          // returns the group index
 
@@ -241,6 +250,11 @@ class LeastSquaresProblem {
   void AddResiduals(int group, const std::vector<int>& parameters, int num_residuals, Model model);
 
   FitResult Solve(const SolveOptions& options);
+
+  // Solve reports each solve (ProgressStage::kSolving) and the covariance step
+  // to `progress` (empty: silent). Not copied by Clone(), so refits of clones
+  // on other threads never report.
+  void SetProgress(Progress progress);
 
   // Current values (physical) of all parameters, e.g. after Solve.
   std::vector<double> Values() const;
@@ -359,6 +373,9 @@ class LeastSquaresProblem {
   std::vector<std::unique_ptr<Group>> groups_;
   std::vector<std::unique_ptr<Block>> blocks_;  // in order of addition
   RobustLoss loss_ = RobustLoss::kSquared;      // set by each Solve from its options
+  Progress progress_;                           // SetProgress
+  std::string unusable_;  // why Solve refuses: the first number from data it cannot use (see AddParameter)
+  void MarkUnusable(const std::string& why);
 };
 
 template <class Model>
@@ -386,6 +403,8 @@ void LeastSquaresProblem::AddShared(int group, const std::vector<int>& parameter
 }
 
 // Student-t quantile t_{q, ν} (Boost.Math); ν = ∞ gives the normal quantile.
+// NaN when ν is not > 0 (no residual degrees of freedom are left: there is no
+// t interval), which the caller reports; a probability outside (0, 1) is misuse.
 double StudentTQuantile(double probability, double degrees_of_freedom);
 
 }  // namespace coilspin::core

@@ -63,6 +63,7 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
 
   const bool intervals = analysis.has_covariance && analysis.failure.empty();
   const double upper_probability = 0.5 * (1.0 + options.confidence);
+  std::string no_interval;  // the first parameter left without degrees of freedom for its interval
   int position = 0;
   for (Eigen::Index i = 0; i < count; ++i) {
     const Parameter& parameter = *parameters_[static_cast<std::size_t>(i)];
@@ -81,6 +82,11 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
           StudentTQuantile(upper_probability, estimate.degrees_of_freedom) * estimate.std_error;
       estimate.ci_low = estimate.value - half_width;
       estimate.ci_high = estimate.value + half_width;
+      if (!std::isfinite(half_width) && no_interval.empty()) {
+        no_interval = "no interval for '" + estimate.name + "': " +
+                      (estimate.degrees_of_freedom > 0.0 ? "its standard error is not finite"
+                                                         : "no residual degrees of freedom are left for it");
+      }
     } else {
       estimate.std_error = estimate.ci_low = estimate.ci_high = estimate.degrees_of_freedom = not_a_number;
     }
@@ -133,11 +139,13 @@ FitResult LeastSquaresProblem::Report(const SolveOptions& options, const std::ve
     result.not_identifiable.push_back(names);
   }
 
-  result.usable = result.converged && intervals;
+  result.usable = result.converged && intervals && no_interval.empty();
   if (!result.converged) {
     result.message = "the solver did not converge (" + result.termination + "): " + summary.message;
   } else if (!analysis.failure.empty()) {
     result.message = analysis.failure;
+  } else if (!no_interval.empty()) {
+    result.message = no_interval;
   } else {
     result.message = summary.message;
   }

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 #include "fitters/core/least_squares.h"
 #include "fitters/core/problem_internals.h"
@@ -174,6 +175,8 @@ SolveRun LeastSquaresProblem::SolveWithActiveBounds(const SolveOptions& options,
   return run;
 }
 
+void LeastSquaresProblem::SetProgress(Progress progress) { progress_ = std::move(progress); }
+
 FitResult LeastSquaresProblem::Solve(const SolveOptions& options) {
   const QuietCeresLog quiet;  // failures are reported in the result, never printed
   const std::vector<int> estimated = EstimatedParameters();
@@ -181,6 +184,7 @@ FitResult LeastSquaresProblem::Solve(const SolveOptions& options) {
   std::string error;
   std::string refusal;
   if (!options.IsValid(&error)) refusal = "invalid options: " + error;
+  if (refusal.empty() && !unusable_.empty()) refusal = "cannot solve: " + unusable_;
   if (refusal.empty()) refusal = StartOutsideBounds();
   if (!refusal.empty()) {
     FitResult result = Report(options, estimated, SolveRun(), FitAnalysis());
@@ -195,17 +199,21 @@ FitResult LeastSquaresProblem::Solve(const SolveOptions& options) {
   SolveRun run;
   FitAnalysis analysis;
   while (true) {
+    ReportProgress(progress_, ProgressStage::kSolving, solves, num_solves);
     run = SolveWithActiveBounds(options, estimated);
     iterations += run.iterations;
     ++solves;
     analysis = Analyse(options, estimated);
     if (solves == num_solves || !RescaleGroupSigmas(analysis)) break;
   }
+  ReportProgress(progress_, ProgressStage::kSolving, num_solves, num_solves);
   run.iterations = iterations;
   const std::vector<double> solved = Values();
   if (options.separate_input_noise && analysis.has_covariance && analysis.failure.empty() &&
       Converged(run.summary.termination_type) && CorrectInputNoiseBias(estimated, analysis)) {
+    ReportProgress(progress_, ProgressStage::kCovariance, 0, 1);
     analysis = Analyse(options, estimated);  // the covariance at the corrected estimate
+    ReportProgress(progress_, ProgressStage::kCovariance, 1, 1);
   }
   FitResult result = Report(options, estimated, run, analysis);
   const std::vector<double> corrected = Values();

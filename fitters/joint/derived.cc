@@ -29,6 +29,7 @@ std::optional<QuantityEstimate> DeriveFromReplicates(const model::DerivedFormula
   q->ci_low = b.value - k * (b.value - b.ci_low);
   q->ci_high = b.value + k * (b.ci_high - b.value);
   q->degrees_of_freedom = b.degrees_of_freedom;  // NaN: not a t interval
+  if (!(std::isfinite(q->ci_low) && std::isfinite(q->ci_high))) return std::nullopt;
   return q;
 }
 
@@ -49,6 +50,7 @@ std::optional<TorqueSpeedLine> TorqueSpeed(const MotorEstimate& e, double voltag
         e.covariance);
     const double t = core::StudentTQuantile(0.5 * (1.0 + e.confidence), p.degrees_of_freedom);
     line.points.push_back({speed, p.value, p.value - t * p.std_error, p.value + t * p.std_error});
+    if (!(std::isfinite(p.value) && std::isfinite(t * p.std_error))) return std::nullopt;  // as for a derived value
   }
   return line;
 }

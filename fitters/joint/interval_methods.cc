@@ -31,10 +31,13 @@ std::optional<IntervalMethod> IntervalMethodFromString(const std::string& text) 
 }
 
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
-                           core::FitResult* fit, std::vector<std::string>* notes) {
+                           core::FitResult* fit, std::vector<std::string>* notes, const core::Progress& progress) {
   core::ProfileOptions options;
   options.confidence = fit->confidence;
+  const int total = static_cast<int>(names.size());
+  int done = 0;
   for (const auto& name : names) {
+    core::ReportProgress(progress, core::ProgressStage::kProfileIntervals, done++, total);
     const int index = fit->IndexOf(name);
     if (index < 0 || fit->parameters[static_cast<std::size_t>(index)].fixed) continue;
     const core::ProfileInterval profile = core::Profile(problem, *fit, name, options);
@@ -55,17 +58,19 @@ void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::
     if (profile.high.found) p.ci_high = p.value + k * (profile.high.bound - least_squares);
     else notes->push_back(name + ": profile upper side not found (" + profile.high.reason + "); Wald side kept");
   }
+  core::ReportProgress(progress, core::ProgressStage::kProfileIntervals, total, total);
 }
 
 std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
                                                              const IntervalOptions& options,
                                                              const Eigen::MatrixXd& added_covariance,
-                                                             core::FitResult* fit, std::vector<std::string>* notes) {
+                                                             core::FitResult* fit, std::vector<std::string>* notes,
+                                                             const core::Progress& progress) {
   core::BootstrapOptions b;
   b.replicates = options.replicates;
   b.seed = options.seed;
   b.confidence = fit->confidence;
-  b.progress = options.progress;
+  b.progress = progress;
   core::BootstrapResult result = core::Bootstrap(problem, *fit, b);
   if (!result.usable) {
     notes->push_back("bootstrap not usable (" + result.message + "); Wald intervals kept");

@@ -25,6 +25,7 @@
 
 #include "fitters/core/bootstrap.h"
 #include "fitters/core/least_squares.h"
+#include "fitters/core/progress.h"
 
 namespace coilspin::joint {
 
@@ -37,23 +38,25 @@ struct IntervalOptions {
   IntervalMethod method = IntervalMethod::kWald;
   int replicates = 200;
   std::uint64_t seed = core::kDefaultBootstrapSeed;
-  std::function<void(int done, int total, double elapsed_seconds)> progress;  // bootstrap only
 };
 
 // Profile intervals for `names` replace the Wald ones in *fit (whose covariance
 // includes every added term: input noise, counted errors), their sides stretched
 // by se(fit)/se(rescaled problem); notes say where a side was not found.
+// Reports ProgressStage::kProfileIntervals, one unit per name, to `progress`.
 void ApplyProfileIntervals(const core::LeastSquaresProblem& problem, const std::vector<std::string>& names,
-                           core::FitResult* fit, std::vector<std::string>* notes);
+                           core::FitResult* fit, std::vector<std::string>* notes, const core::Progress& progress = {});
 
 // Bootstrap intervals replace the Wald ones (and the replicates' covariance the
 // fit's) in *fit. added_covariance: the terms resampling cannot reproduce (the
 // input-noise terms, counted quantisation errors; same layout as fit->covariance),
 // added to the replicates' covariance and stretching the percentile sides by
 // √(1 + added/replicate variance). Empty, with a note, when the bootstrap is not usable.
+// Reports ProgressStage::kBootstrapReplicates to `progress`.
 std::optional<core::BootstrapResult> ApplyBootstrapIntervals(const core::LeastSquaresProblem& problem,
                                                              const IntervalOptions& options,
                                                              const Eigen::MatrixXd& added_covariance,
-                                                             core::FitResult* fit, std::vector<std::string>* notes);
+                                                             core::FitResult* fit, std::vector<std::string>* notes,
+                                                             const core::Progress& progress = {});
 
 }  // namespace coilspin::joint

@@ -24,7 +24,6 @@
 namespace coilspin::joint {
 namespace {
 
-constexpr int kGroupSigmaRounds = 3;
 constexpr int kTorqueSpeedPoints = 11;
 const char* const kTiedBasis = "equal-to-Ke";
 
@@ -154,6 +153,10 @@ bool MotorFitOptions::IsValid(std::string* error) const {
     *error = "--at-voltage must be positive";
     return false;
   }
+  if (max_solver_iterations < 1 || group_sigma_rounds < 0) {
+    *error = "the solver needs at least 1 iteration and 0 or more noise re-estimation rounds";
+    return false;
+  }
   for (const auto& o : noise) {
     if (o.channel != "current" && o.channel != "voltage" && o.channel != "speed" && o.channel != "position") {
       *error = "--noise: channel must be current, voltage, speed or position, got '" + o.channel + "'";
@@ -204,14 +207,20 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   }
 
   // 1. Each test plans what it can determine.
+  const int num_tests = static_cast<int>(tests.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, 0, num_tests);
   locked_rotor::LockedRotorOptions lr_options = options.locked_rotor;
   lr_options.confidence = options.confidence;
   locked_rotor::LockedRotorPlan lr;
   if (!locked.empty()) lr = locked_rotor::PlanLockedRotor(locked, lr_options, &e);
+  int planned = static_cast<int>(locked.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, planned, num_tests);
   std::optional<double> count_rad;  // one encoder count at the motor shaft
   if (options.counts_per_rev) count_rad = units::kRadiansPerRevolution * options.gear_ratio / *options.counts_per_rev;
   spin_down::SpinDownPlan sd;
   if (!coasts.empty()) sd = spin_down::PlanSpinDown(coasts, count_rad, &e);
+  planned += static_cast<int>(coasts.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, planned, num_tests);
   step::StepTestPlan st;
   if (!steps.empty()) {
     const std::optional<double> reference_degC =
@@ -219,6 +228,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
     st = step::PlanStep(steps, count_rad, {reference_degC, lr_options.winding_temperature_degC},
                         lr.brush_drop_start_V, &e);
   }
+  planned += static_cast<int>(steps.size());
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, planned, num_tests);
   no_load::NoLoadPlan nl;
   if (!free_plateaus.empty())
     nl = no_load::PlanNoLoad(free_plateaus, speeds,
@@ -226,6 +237,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
                              lr.brush_drop_start_V, {lr.reference_degC, lr_options.winding_temperature_degC},
                              sd.measures_back_emf ? std::optional<double>(sd.back_emf_start) : std::nullopt,
                              NoLoadPlateauOptions(lr_options.plateaus), &e);
+  core::ReportProgress(options.progress, core::ProgressStage::kPlanning, num_tests, num_tests);
 
   // Readings each log had set aside at ingest, on its test's summary.
   for (auto& summary : e.tests)
@@ -256,6 +268,7 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
 
   // 3. One problem.
   core::LeastSquaresProblem problem;
+  problem.SetProgress(options.progress);
   core::SharedParameters parameters(&problem);
   double peak_current_A = 0.0;
   for (const auto& t : tests)
@@ -279,7 +292,8 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   core::SolveOptions solve;
   solve.confidence = options.confidence;
   solve.estimate_group_sigmas = true;
-  solve.group_sigma_rounds = kGroupSigmaRounds;
+  solve.group_sigma_rounds = options.group_sigma_rounds;
+  solve.max_iterations = options.max_solver_iterations;
   solve.loss = options.loss;
   core::FitResult fit = problem.Solve(solve);
   if (options.keep_model_traces)  // at the solution, before any interval method moves the problem
@@ -295,13 +309,13 @@ MotorEstimate FitMotor(const std::vector<TestLog>& tests, const MotorFitOptions&
   if (fit.usable && options.intervals.method == IntervalMethod::kProfile) {
     std::vector<std::string> names;
     for (const auto& info : kPhysical) names.push_back(info.key);
-    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes);
+    ApplyProfileIntervals(problem, names, &fit, &e.intervals.notes, options.progress);
   }
   if (fit.usable && options.intervals.method == IntervalMethod::kBootstrap) {
     // Resampled residuals cannot redraw an encoder's phase (one per log), nor the logged voltage's noise that
     // drives the models: both terms are added to the replicates' covariance (core/quantisation.h, input_noise.h).
     bootstrap = ApplyBootstrapIntervals(problem, options.intervals, input_covariance + fit.counted_covariance, &fit,
-                                        &e.intervals.notes);
+                                        &e.intervals.notes, options.progress);
     e.intervals.seed = options.intervals.seed;
     if (bootstrap) {
       e.intervals.replicates = static_cast<int>(bootstrap->replicates.size());

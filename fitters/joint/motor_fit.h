@@ -23,6 +23,7 @@
 #include <vector>
 
 #include "fitters/core/motor_estimate.h"
+#include "fitters/core/progress.h"
 #include "fitters/core/robust_loss.h"
 #include "fitters/joint/interval_methods.h"
 #include "fitters/locked_rotor/locked_rotor_fit.h"
@@ -58,6 +59,13 @@ struct MotorFitOptions {
   IntervalOptions intervals;                                       // wald | profile | bootstrap
   core::RobustLoss loss = core::RobustLoss::kSquared;              // --robust huber|cauchy
   std::vector<NoiseOverride> noise;                                // --noise channel=sigma
+  core::Progress progress;  // planning, solving, covariance, profile or bootstrap (progress.h); empty: silent
+  // Bounds on the work, for a caller that must stay fast (the fuzz harness,
+  // tests/fuzz/fuzz_fit.cc): Levenberg–Marquardt iterations per solve (the core's
+  // default) and the rounds that re-estimate each group's noise (3 by default:
+  // the noise levels then agree with the residuals to well within their spread).
+  int max_solver_iterations = core::SolveOptions().max_iterations;
+  int group_sigma_rounds = 3;
   // Every log's current comes through one sensor (sensor_offsets.h): its zero reading,
   // seen in one log, corrects all. False: the sensors differ and no log corrects another.
   bool one_current_sensor = true;

@@ -11,6 +11,7 @@
 #include <thread>
 
 #include "src/cli/exit_codes.h"
+#include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/output/aligned_columns.h"
 #include "src/output/atomic_file.h"
@@ -37,7 +38,7 @@ struct Motor {
 
 std::vector<Motor> Plan(const FitArguments& a) {
   if (a.session_paths.empty()) Usage("--out-dir needs session files, one per motor");
-  if (!a.json_path.empty()) Usage("--json names one result file; with --out-dir each session's goes into the folder");
+  if (a.json_path) Usage("--json names one result file; with --out-dir each session's goes into the folder");
   if (!a.report_path.empty()) Usage("--report draws one motor's fit; it does not go with --out-dir");
   std::map<std::string, std::string> by_stem;
   std::vector<Motor> motors;
@@ -47,7 +48,7 @@ std::vector<Motor> Plan(const FitArguments& a) {
     if (!added) Usage("two session files would write the same result " + stem + ".json: " + it->second + " and " + session);
     Motor m;
     m.session = session;
-    m.result = (fs::path(a.out_dir) / (stem + ".json")).string();
+    m.result = (fs::path(*a.out_dir) / (stem + ".json")).string();
     motors.push_back(std::move(m));
   }
   return motors;
@@ -96,9 +97,17 @@ int RunBatchFit(const FitArguments& a, std::ostream& out) {
   std::vector<Motor> motors = Plan(a);
   std::optional<verify::Datasheet> sheet;
   if (!a.datasheet_path.empty()) sheet = verify::LoadDatasheet(a.datasheet_path);
+  const std::string& folder = *a.out_dir;
+  if (folder.empty() || output::IsStandardOutput(folder))
+    throw InputError(InputErrorKind::kBadOutputPath, folder, 0, 0,
+                     "--out-dir: give a folder for the result files (an empty path or - names none)");
   std::error_code error;
-  fs::create_directories(a.out_dir, error);
-  if (error || !fs::is_directory(a.out_dir)) Usage("--out-dir " + a.out_dir + ": cannot create the folder (" + error.message() + ")");
+  fs::create_directories(folder, error);
+  if (error || !fs::is_directory(folder))
+    throw InputError(InputErrorKind::kBadOutputPath, folder, 0, 0,
+                     "--out-dir: cannot create the folder" + (error ? " (" + error.message() + ")" : std::string()));
+  // Every result file's path, before any fit (an existing FIFO or folder of that name, an unwritable folder).
+  for (const Motor& m : motors) RequireOutputPath("--out-dir", m.result);
 
   const std::size_t workers =
       std::max<std::size_t>(1, std::min<std::size_t>(motors.size(), std::thread::hardware_concurrency()));

@@ -4,9 +4,11 @@
 #include <cstdio>
 #include <nlohmann/json.hpp>
 #include <ostream>
+#include <stdexcept>
 
 #include "src/check/kt_ke_consistency.h"
 #include "src/cli/exit_codes.h"
+#include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/output/atomic_file.h"
 #include "src/units/compound_units.h"
@@ -54,6 +56,19 @@ units::MotorConstant ParseFlag(const FlagInfo& info, const std::string& text) {
   if (!(constant.value > 0.0)) {
     BadOption(std::string(info.flag) + " expects a positive " + std::string(units::ConstantKindName(info.kind)) +
               ", got '" + constant.as_given + "'");
+  }
+  // In SI (and, for Kv, as Ke = 1/Kv) the figure must stay a positive finite double: 1e-308 rpm/V would
+  // give Ke = inf, and the check would answer with infinities.
+  const double si = constant.kind == ConstantKind::kTorqueConstant ? constant.value_si
+                                                                   : units::BackEmfConstantOf_V_s_per_rad(constant);
+  if (!(std::isfinite(constant.value_si) && constant.value_si > 0.0 && std::isfinite(si) && si > 0.0)) {
+    BadOption(std::string(info.flag) + " '" + constant.as_given + "' is too " +
+              (constant.value_si > 1.0 ? "large" : "small") + ": " +
+              (constant.kind == ConstantKind::kSpeedConstant ? "Ke = 1/Kv" : "its value") + " in " +
+              std::string(units::SiUnitOf(constant.kind == ConstantKind::kTorqueConstant
+                                              ? ConstantKind::kTorqueConstant
+                                              : ConstantKind::kBackEmfConstant)) +
+              " is beyond the range of a double; check the figure and its unit");
   }
   return constant;
 }
@@ -110,10 +125,13 @@ void DeclareConsistencyOptions(CLI::App* c, ConsistencyArguments* a) {
   c->add_option("--kv", a->speed_constant,
                 "Speed constant instead of --ke, e.g. \"850 rpm/V\" (Ke = 60/(2*pi*Kv) V*s/rad)");
   c->add_option("--tolerance", a->tolerance, "Kt/Ke counts as consistent within 1 +/- this (default 0.05)");
-  c->add_option("--json", a->json_path, "Write the result file (coilspin.consistency/1) here, atomically");
+  c->add_option("--json", a->json_path,
+                "Write the result file (coilspin.consistency/1) here, atomically; - writes it to standard output "
+                "instead of the report");
 }
 
 int RunConsistency(const ConsistencyArguments& a, std::ostream& out) {
+  if (a.json_path) RequireOutputPath("--json", *a.json_path);
   const double tolerance = a.tolerance.value_or(units::kDefaultKtKeTolerance);
   if (!check::IsValidKtKeTolerance(tolerance) || !std::isfinite(tolerance)) {
     BadOption("--tolerance expects a number strictly between 0 and 1, such as 0.05, got " + Shown(tolerance));
@@ -129,9 +147,20 @@ int RunConsistency(const ConsistencyArguments& a, std::ostream& out) {
   const units::MotorConstant kt = ParseFlag(kTorqueFlag, a.torque_constant);
   const units::MotorConstant ke = a.back_emf_constant.empty() ? ParseFlag(kSpeedFlag, a.speed_constant)
                                                               : ParseFlag(kBackEmfFlag, a.back_emf_constant);
+  const double kt_over_ke = kt.value_si / units::BackEmfConstantOf_V_s_per_rad(ke);
+  if (!(std::isfinite(kt_over_ke) && kt_over_ke > 0.0)) {
+    BadOption("Kt/Ke of '" + kt.as_given + "' and '" + ke.as_given +
+              "' is beyond the range of a double; check the figures and their units");
+  }
   const check::DatasheetKtKe check = check::CheckDatasheetKtKe(kt, ke, tolerance);
-  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, ResultJson(check, kt, ke));
-  PrintReport(check, kt, ke, out);
+  const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
+  if (json_on_stdout) {
+    out << ResultJson(check, kt, ke);
+    if (!out.flush()) throw std::runtime_error("cannot write the result to standard output");
+  } else {
+    if (a.json_path) output::WriteFileAtomically(*a.json_path, ResultJson(check, kt, ke));
+    PrintReport(check, kt, ke, out);
+  }
   return check.verdict == "consistent" ? kSuccess : kInconsistent;
 }
 

@@ -19,7 +19,7 @@ struct ConsistencyArguments {
   std::string back_emf_constant;    // --ke, as written
   std::string speed_constant;       // --kv, as written
   std::optional<double> tolerance;  // --tolerance
-  std::string json_path;            // --json
+  std::optional<std::string> json_path;  // --json ("-": standard output, instead of the report)
 };
 
 // Declares the consistency options on `command` (a CLI11 subcommand).

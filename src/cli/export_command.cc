@@ -3,6 +3,7 @@
 #include <ostream>
 
 #include "src/cli/exit_codes.h"
+#include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/model/state_space.h"
 #include "src/output/atomic_file.h"
@@ -35,12 +36,13 @@ void DeclareExportOptions(CLI::App* c, ExportArguments* a) {
                 "double SI values), csv (the torque-speed line with its band)")
       ->required()
       ->check(CLI::IsMember({"spice", "state-space", "c-header", "csv"}));
-  c->add_option("--out", a->out_path, "File to write (atomically)")->required();
+  c->add_option("--out", a->out_path, "File to write (atomically); - writes it to standard output")->required();
   c->add_option("--name", a->name,
                 "Name of the SPICE subcircuit or C++ namespace (default: from the motor label, else coilspin_motor)");
 }
 
 int RunExport(const ExportArguments& a, std::ostream& out, std::ostream& err) {
+  RequireOutputPath("--out", a.out_path);  // before any work (output_path.h)
   const result::ResultFile file = result::ReadResultFile(a.result_path);
   const MotorEstimate& e = file.estimate;
   output::ExportSource source{a.result_path,
@@ -68,6 +70,7 @@ int RunExport(const ExportArguments& a, std::ostream& out, std::ostream& err) {
     text = output::TorqueSpeedCsv(*e.torque_speed, source);
   }
   output::WriteFileAtomically(a.out_path, text);
+  if (output::IsStandardOutput(a.out_path)) return kSuccess;  // stdout holds the export and nothing else
   out << "wrote " << a.format << " export of " << (e.motor_label.empty() ? name : e.motor_label) << " to "
       << a.out_path << "\n";
   return kSuccess;

@@ -5,12 +5,16 @@
 #include <cstdlib>
 #include <iostream>
 #include <ostream>
+#include <stdexcept>
 
-#include "fitters/core/bootstrap_progress.h"
 #include "fitters/joint/motor_fit.h"
 #include "src/cli/batch_fit.h"
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/memory_check.h"
+#include "src/cli/number_checks.h"
+#include "src/cli/output_path.h"
+#include "src/cli/progress_printer.h"
 #include "src/cli/report_file.h"
 #include "src/cli/session_file.h"
 #include "src/ingest/input_error.h"
@@ -58,27 +62,30 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--spin-down", a->spin_down_files, "Spin-down log (run up, then an open-circuit coast); repeatable");
   c->add_option("--step", a->step_files, "Free-shaft voltage step log; repeatable");
   c->add_option("--cpr", a->counts_per_rev, "Encoder counts per revolution, for position [counts]")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--gear-ratio", a->gear_ratio, "Motor turns per output turn when speed is read at a gearbox output")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--winding-temperature", a->winding_temperature_degC,
-                "Winding temperature during the locked-rotor test [degC], when not logged");
+                "Winding temperature during the locked-rotor test [degC], when not logged")
+      ->check(WindingTemperature());
   c->add_option("--reference-temperature", a->reference_temperature_degC,
-                "Temperature [degC] to which resistance is corrected");
+                "Temperature [degC] to which resistance is corrected")
+      ->check(WindingTemperature());
   c->add_option("--known-inertia", a->known_inertia_kg_m2, "Inertia of the rotating assembly [kg*m^2], when known")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--at-voltage", a->at_voltage_V,
                 "Operating voltage [V] of the derived quantities (default: the highest settled level logged)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--tolerance", a->tolerance, "Kt/Ke consistency tolerance, e.g. 0.05 for 1 +/- 5 %")
-      ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
+      ->check(OpenInterval(0.0, 1.0));
   c->add_option("--confidence", a->confidence, "Two-sided interval level, e.g. 0.95")
-      ->check(CLI::Range(0.0, 1.0).description("between 0 and 1"));
+      ->check(OpenInterval(0.0, 1.0));
   c->add_option("--intervals", a->intervals,
                 "Interval method: wald (default; Student-t, widened for autocorrelated residuals), profile "
                 "(profile likelihood), bootstrap (moving-block, percentile)")
       ->check(CLI::IsMember({"wald", "profile", "bootstrap"}));
-  c->add_option("--replicates", a->replicates, "Bootstrap replicates (default 200)")->check(CLI::Range(10, 100000));
+  c->add_option("--replicates", a->replicates, "Bootstrap replicates (default 200)")
+      ->check(WholeNumberFromTo(10, 100000));
   c->add_option("--seed", a->seed, "Bootstrap seed (fixed by default, so results are reproducible)");
   c->add_option("--robust", a->robust, "Robust loss for logs with spikes: huber or cauchy (reported in the result)")
       ->check(CLI::IsMember({"huber", "cauchy"}));
@@ -94,7 +101,9 @@ void DeclareFitOptions(CLI::App* c, FitArguments* a) {
   c->add_option("--unit", a->unit_specs, "Unit of a quantity whose header names none, e.g. --unit current=mA");
   c->add_option("--require", a->required,
                 "Parameter that must be determined (else exit status 1), e.g. --require inductance");
-  c->add_option("--json", a->json_path, "Write the result file (coilspin.result/2) here, atomically");
+  c->add_option("--json", a->json_path,
+                "Write the result file (coilspin.result/2) here, atomically; - writes it to standard output "
+                "instead of the table");
   c->add_option("--report", a->report_path,
                 "Write the fit as one self-contained HTML page here (parameters, charts of every log with the "
                 "fitted model and residuals, torque-speed line, correlations, warnings); it opens offline");
@@ -153,7 +162,6 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
   if (a.seed) options.intervals.seed = *a.seed;
   if ((a.replicates || a.seed) && options.intervals.method != joint::IntervalMethod::kBootstrap)
     throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--replicates and --seed apply to --intervals bootstrap only");
-  if (!a.quiet) options.intervals.progress = core::StderrBootstrapProgress();
   if (!a.robust.empty()) options.loss = *core::RobustLossFromString(a.robust);
   const std::string current_sensors =
       !a.current_sensors.empty() ? a.current_sensors : session && session->current_sensors ? *session->current_sensors : "one";
@@ -180,8 +188,19 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
       throw InputError(InputErrorKind::kBadOption, "", 0, 0, "--require " + key + ": no such key; a result holds " + list);
     }
 
+  std::vector<PlannedLog> sizes;
+  for (const auto& p : planned) sizes.push_back({p.path, p.kind});
+  RequireMemoryForLogs(sizes, AvailableMemoryBytes());  // before a log is read (memory_check.h)
+
+  std::optional<ProgressPrinter> progress;  // stderr, silent with --quiet
+  if (!a.quiet) {
+    progress.emplace(std::cerr, ProgressPrinter::StderrIsTerminal());
+    options.progress = progress->Callback();
+  }
   std::vector<joint::TestLog> logs;
+  const int num_logs = static_cast<int>(planned.size());
   for (const auto& p : planned) {
+    if (progress) progress->Report("reading " + p.shown_path, static_cast<int>(logs.size()), num_logs);
     BenchLog log = ReadBenchLog(p.path, p.read);
     SetAsideOutliers(&log);
     RequireForTest(log, p.kind);
@@ -190,6 +209,7 @@ FitOutcome FitOneMotor(const FitArguments& a, const verify::Datasheet* sheet, co
   }
 
   MotorEstimate estimate = joint::FitMotor(logs, options);
+  if (progress) progress->Finish();
   estimate.settings.insert(estimate.settings.end(), estimate_settings_noise.begin(), estimate_settings_noise.end());
   estimate.settings.push_back({"confidence", Text(options.confidence)});
   estimate.settings.push_back({"intervals", a.intervals});
@@ -274,14 +294,23 @@ std::string ReportText(const FitOutcome& o) {
 }
 
 int RunFit(const FitArguments& a, std::ostream& out) {
+  if (a.json_path) RequireOutputPath("--json", *a.json_path);  // before any work (output_path.h)
   std::optional<verify::Datasheet> sheet;  // read first: a bad sheet stops before any fit
   if (!a.datasheet_path.empty()) sheet = verify::LoadDatasheet(a.datasheet_path);
   if (!a.report_path.empty()) CheckReportTarget(a.report_path);  // before the fit, too
-  const std::string name = !a.json_path.empty() ? a.json_path : !a.session_path.empty() ? a.session_path : "this fit";
+  const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
+  const std::string name = a.json_path && !json_on_stdout ? *a.json_path
+                           : !a.session_path.empty()      ? a.session_path
+                                                          : "this fit";
   const FitOutcome outcome = FitOneMotor(a, sheet ? &*sheet : nullptr, name);
-  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, ResultText(outcome));
+  if (json_on_stdout) {
+    out << ResultText(outcome);
+    if (!out.flush()) throw std::runtime_error("cannot write the result to standard output");
+  } else if (a.json_path) {
+    output::WriteFileAtomically(*a.json_path, ResultText(outcome));
+  }
   if (!a.report_path.empty()) WriteReport(a.report_path, ReportText(outcome));
-  if (!a.quiet) {
+  if (!a.quiet && !json_on_stdout) {
     out << output::ParameterTable(outcome.estimate);
     if (outcome.verification) out << "\n" << output::VerificationText(*outcome.verification);
   }
@@ -292,7 +321,7 @@ int RunFit(const FitArguments& a, std::ostream& out) {
 }
 
 int RunFitCommand(FitArguments a, std::ostream& out) {
-  if (!a.out_dir.empty()) return RunBatchFit(a, out);
+  if (a.out_dir) return RunBatchFit(a, out);
   if (a.session_paths.size() > 1)
     throw InputError(InputErrorKind::kBadOption, "", 0, 0,
                      "several session files are a lot of motors: add --out-dir DIR for one result file each");

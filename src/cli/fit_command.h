@@ -38,10 +38,10 @@ struct FitArguments {
   std::vector<std::string> column_specs;  // quantity=header
   std::vector<std::string> unit_specs;    // quantity=unit
   std::vector<std::string> required;      // parameter keys that must be determined
-  std::string json_path;
-  std::string report_path;     // --report: the fit as a self-contained HTML page (src/output/html_report.h)
-  std::string datasheet_path;  // --datasheet: verify the fitted motor against it
-  std::string out_dir;         // --out-dir: a lot, one result file per session (batch_fit.h)
+  std::optional<std::string> json_path;  // --json; "-": the result file on stdout (and no table there)
+  std::string report_path;               // --report: the fit as a self-contained HTML page (src/output/html_report.h)
+  std::string datasheet_path;            // --datasheet: verify the fitted motor against it
+  std::optional<std::string> out_dir;    // --out-dir: a lot, one result file per session (batch_fit.h)
   bool quiet = false;
   bool verification_sets_status = true;  // false for the demo: its sheet fails a line on purpose
 };
@@ -49,7 +49,8 @@ struct FitArguments {
 // Declares the fit options on `command` (a CLI11 subcommand).
 void DeclareFitOptions(CLI::App* command, FitArguments* arguments);
 
-// Runs the fit: table on `out` unless quiet, result file when asked.
+// Runs the fit: table on `out` unless quiet or the result file goes to `out`
+// (--json -), result file when asked (its path checked before any log is read).
 // Throws InputError for bad input (nothing written); returns 0 or 1.
 int RunFit(const FitArguments& arguments, std::ostream& out);
 

@@ -2,7 +2,10 @@
 // bench logs. This file is the only place that maps failures to exit codes.
 
 #include <CLI/CLI.hpp>
+#include <csignal>
+#include <cstdlib>
 #include <iostream>
+#include <new>
 
 #include "src/cli/consistency_command.h"
 #include "src/cli/demo_session.h"
@@ -10,6 +13,7 @@
 #include "src/cli/export_command.h"
 #include "src/cli/fit_command.h"
 #include "src/cli/simulate_command.h"
+#include "src/cli/unknown_option.h"
 #include "src/cli/tune_command.h"
 #include "src/cli/verify_command.h"
 #include "src/ingest/input_error.h"
@@ -28,7 +32,8 @@ int main(int argc, char** argv) {
   cli::FitArguments demo;
   CLI::App* demo_command = app.add_subcommand(
       "demo", "Fit the bundled demo motor, print its parameter table and verify it against the demo datasheet");
-  demo_command->add_option("--json", demo.json_path, "Also write the result file here");
+  demo_command->add_option("--json", demo.json_path,
+                           "Also write the result file here; - writes it to standard output instead of the table");
   demo_command->add_option("--report", demo.report_path,
                            "Also write the fit as one self-contained HTML page here (opens offline)");
 
@@ -56,6 +61,12 @@ int main(int argc, char** argv) {
       app.add_subcommand("tune", "PI gains of a drive's current and speed loops for a fitted motor");
   cli::DeclareTuneOptions(tune_command, &tune);
 
+  // A reader that closes the pipe early (`coilspin fit ... --json - | head`) makes a write fail, not a signal.
+  std::signal(SIGPIPE, SIG_IGN);
+  if (const auto unknown = cli::UnknownOptionMessage(app, argc, argv)) {
+    std::cerr << "coilspin: error: " << *unknown << "\n";
+    return cli::kBadInput;
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -81,6 +92,12 @@ int main(int argc, char** argv) {
     return cli::kBadInput;
   } catch (const std::runtime_error& e) {  // a file that could not be written
     std::cerr << "coilspin: error: " << e.what() << "\n";
+    return cli::kBadInput;
+  } catch (const std::bad_alloc&) {  // the memory check before a fit (fit_command.cc) keeps this rare
+    std::cerr << "coilspin: error: out of memory; give smaller logs or free memory\n";
+    return cli::kBadInput;
+  } catch (const std::exception& e) {  // a bug: every input problem is an InputError; still no abort
+    std::cerr << "coilspin: internal error: " << e.what() << " (please report it with the command and its input)\n";
     return cli::kBadInput;
   }
   return cli::kBadInput;

@@ -1,6 +1,8 @@
 #include "src/cli/session_file.h"
 
+#include <cctype>
 #include <filesystem>
+#include <fstream>
 #include <set>
 #include <toml++/toml.h>
 
@@ -55,6 +57,25 @@ std::map<units::Quantity, std::string> QuantityMap(const std::string& path, cons
   return result;
 }
 
+// A bench log given where the session file goes (`coilspin fit log.csv`): a .csv,
+// or .tsv name, or a first line that is not a comment and holds a unit in
+// brackets and a delimiter ("time [s],voltage [V]").
+bool LooksLikeBenchLog(const std::string& path) {
+  std::string extension = std::filesystem::path(path).extension().string();
+  for (char& c : extension) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  if (extension == ".csv" || extension == ".tsv") return true;
+  std::ifstream in(path, std::ios::binary);
+  std::string line;
+  while (std::getline(in, line)) {
+    const auto first = line.find_first_not_of(" \t\r");
+    if (first == std::string::npos || line[first] == '#') continue;
+    const bool unit = line.find('[') != std::string::npos || line.find('(') != std::string::npos;
+    const bool delimited = line.find_first_of(",;\t") != std::string::npos;
+    return unit && delimited && line.find('=') == std::string::npos;
+  }
+  return false;
+}
+
 }  // namespace
 
 Session LoadSession(const std::string& path) {
@@ -65,8 +86,14 @@ Session LoadSession(const std::string& path) {
     const auto& where = error.source();
     if (where.begin.line == 0 && !std::filesystem::exists(path))
       throw InputError(InputErrorKind::kCannotOpen, path, 0, 0, "cannot open the session file");
+    if (LooksLikeBenchLog(path))
+      throw InputError(InputErrorKind::kBadSession, path, 0, 0,
+                       "this looks like a bench log (CSV), not a session file (TOML); give a log with the flag of "
+                       "its test: --locked-rotor, --no-load, --spin-down or --step FILE (e.g. coilspin fit "
+                       "--locked-rotor " + path + ")");
     throw InputError(InputErrorKind::kBadSession, path, static_cast<long>(where.begin.line),
-                     static_cast<long>(where.begin.column), std::string(error.description()));
+                     static_cast<long>(where.begin.column),
+                     std::string(error.description()) + " (expected a session file in TOML: docs/file-formats.md)");
   }
   Session session;
   session.path = path;

@@ -11,8 +11,11 @@
 
 #include "src/cli/exit_codes.h"
 #include "src/cli/key_value.h"
+#include "src/cli/number_checks.h"
+#include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/model/free_shaft_plan_defaults.h"
+#include "src/model/sample_plan.h"
 #include "src/model/simulate_locked_rotor.h"
 #include "src/model/simulate_no_load.h"
 #include "src/model/simulate_spin_down.h"
@@ -170,6 +173,21 @@ std::string Text(double value) {
   return text.str();
 }
 
+// Refuses, before anything is simulated, a log of more than model::kMaxSimulatedSamples
+// samples (`span_s` in all at `sample_period_s`), saying which options set its length.
+void RequireWithinSampleCap(double span_s, double sample_period_s, const std::string& shorter) {
+  const double samples = span_s / sample_period_s;
+  if (samples <= static_cast<double>(model::kMaxSimulatedSamples)) return;
+  Bad("the log would hold " + Text(samples) + " samples (" + Text(span_s) + " s at " + Text(sample_period_s) +
+      " s per sample), more than simulate writes (" + std::to_string(model::kMaxSimulatedSamples) +
+      "); ask for less: " + shorter);
+}
+
+// How a default span was chosen, for the message above.
+std::string DefaultNote(bool given, const std::string& option, double default_s, const std::string& what) {
+  return given ? "" : " (" + option + " defaults to " + what + ", " + Text(default_s) + " s)";
+}
+
 // --step FROM:TO, the supply [V] before and after the step.
 std::pair<double, double> StepLevels(const std::string& spec) {
   const std::string usage = "--step expects FROM:TO volts, e.g. 0:12, got '" + spec + "'";
@@ -197,6 +215,8 @@ model::SampledLog LockedRotorLog(const SimulateArguments& a, const model::MotorP
     plan.before_s = a.before_s.value_or(kStepBefore_s);
     plan.after_s = a.after_s.value_or(kLockedStepAfter_s);
     plan.sample_period_s = a.sample_period_s.value_or(kStepSamplePeriod_s);
+    RequireWithinSampleCap(plan.before_s + plan.after_s, plan.sample_period_s,
+                           "a shorter --before or --after, or a longer --sample-period");
     style.comment_lines.push_back("simulated locked-rotor step capture (coilspin simulate)");
     return model::SimulateLockedRotorStep(motor, plan, bench);
   }
@@ -205,6 +225,8 @@ model::SampledLog LockedRotorLog(const SimulateArguments& a, const model::MotorP
   plan.supply_levels_V = a.levels_V;
   plan.hold_s = a.hold_s.value_or(kPlateauHold_s);
   plan.sample_period_s = a.sample_period_s.value_or(kPlateauSamplePeriod_s);
+  RequireWithinSampleCap(static_cast<double>(plan.supply_levels_V.size()) * plan.hold_s, plan.sample_period_s,
+                         "fewer --levels, a shorter --hold, or a longer --sample-period");
   plan.log_temperature = a.log_temperature;
   plan.log_torque = a.log_torque;
   style.comment_lines.push_back("simulated locked-rotor plateaus (coilspin simulate)");
@@ -218,6 +240,9 @@ model::SampledLog NoLoadLog(const SimulateArguments& a, const model::MotorParame
   plan.supply_levels_V = a.levels_V;
   plan.hold_s = a.hold_s ? *a.hold_s : model::SettlingTime_s(motor, bench);
   plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
+  RequireWithinSampleCap(static_cast<double>(plan.supply_levels_V.size()) * plan.hold_s, plan.sample_period_s,
+                         "fewer --levels, a shorter --hold, or a longer --sample-period" +
+                             DefaultNote(a.hold_s.has_value(), "--hold", plan.hold_s, "the settling time"));
   plan.shaft = ShaftFor(a);
   plan.log_temperature = a.log_temperature;
   style.comment_lines.push_back("simulated no-load levels held " + Text(plan.hold_s) + " s each (coilspin simulate)");
@@ -237,6 +262,10 @@ model::SampledLog SpinDownLog(const SimulateArguments& a, const model::MotorPara
     Bad(std::string(e.what()) + " with --coast");
   }
   plan.sample_period_s = a.sample_period_s.value_or(kFreeShaftSamplePeriod_s);
+  RequireWithinSampleCap(plan.run_s + plan.coast_s, plan.sample_period_s,
+                         "a shorter --run or --coast, or a longer --sample-period" +
+                             DefaultNote(a.run_s.has_value(), "--run", plan.run_s, "the settling time") +
+                             DefaultNote(a.coast_s.has_value(), "--coast", plan.coast_s, "the time to rest"));
   plan.log_voltage = !a.no_coast_voltage;
   plan.log_current = !a.no_coast_current;
   plan.shaft = ShaftFor(a);
@@ -262,6 +291,12 @@ model::SampledLog StepLog(const SimulateArguments& a, const model::MotorParamete
   plan.pre_step_s = a.before_s.value_or(kStepBefore_s);
   plan.hold_s = a.after_s.value_or(settling_s);
   plan.sample_period_s = a.sample_period_s ? *a.sample_period_s : model::StepSamplePeriod_s(motor, bench);
+  RequireWithinSampleCap(plan.settle_s + plan.pre_step_s + plan.hold_s, plan.sample_period_s,
+                         "a shorter --after, --before or --settle, or a longer --sample-period" +
+                             DefaultNote(a.after_s.has_value(), "--after", plan.hold_s, "the settling time") +
+                             (plan.settle_s > 0.0 ? DefaultNote(a.settle_s.has_value(), "--settle", plan.settle_s,
+                                                                "the settling time")
+                                                  : std::string()));
   plan.shaft = ShaftFor(a);
   plan.log_temperature = a.log_temperature;
   const std::string start =
@@ -308,72 +343,76 @@ void AddShaftNotes(const model::BenchConditions& bench, output::CsvStyle& style)
 void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_option("kind", a->kind, "Test to simulate: locked-rotor, no-load, spin-down or step (free-shaft voltage step)")
       ->required();
-  c->add_option("--out", a->out_path, "CSV file to write (atomically)")->required();
+  c->add_option("--out", a->out_path, "CSV file to write (atomically); - writes it to standard output")->required();
   // The motor (SI). Every kind needs R and L; no-load, spin-down and step also Ke and J.
   c->add_option("--resistance", a->motor.resistance_ohm, "R [ohm] at the winding's starting temperature")
-      ->required()->check(CLI::PositiveNumber);
-  c->add_option("--inductance", a->motor.inductance_H, "L [H]")->required()->check(CLI::PositiveNumber);
-  c->add_option("--brush-drop", a->motor.brush_drop_V, "Vb [V]")->check(CLI::NonNegativeNumber);
+      ->required()->check(PositiveNumber());
+  c->add_option("--inductance", a->motor.inductance_H, "L [H]")->required()->check(PositiveNumber());
+  c->add_option("--brush-drop", a->motor.brush_drop_V, "Vb [V]")->check(NonNegativeNumber());
   c->add_option("--back-emf-constant", a->motor.back_emf_constant_V_s_per_rad,
                 "Ke [V*s/rad] (no-load, spin-down, step)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--torque-constant", a->torque_constant, "Kt [N*m/A]; default Ke (ideal machine, SI)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--inertia", a->motor.inertia_kg_m2, "J [kg*m^2] (no-load, spin-down, step)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--viscous-friction", a->motor.viscous_friction_N_m_s_per_rad, "B [N*m*s/rad]")
-      ->check(CLI::NonNegativeNumber);
-  c->add_option("--coulomb-friction", a->motor.coulomb_friction_N_m, "Tc [N*m]")->check(CLI::NonNegativeNumber);
+      ->check(NonNegativeNumber());
+  c->add_option("--coulomb-friction", a->motor.coulomb_friction_N_m, "Tc [N*m]")->check(NonNegativeNumber());
   // The test plan.
   c->add_option("--levels", a->levels_V,
                 "Supply levels [V]: locked-rotor plateaus or no-load levels, e.g. --levels 2,4,6,-3")
-      ->delimiter(',');
+      ->delimiter(',')
+      ->check(FiniteNumber());
   c->add_option("--hold", a->hold_s, "Time at each level [s] (0.5 locked-rotor; no-load: until settled)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--step", a->step_spec,
                 "FROM:TO supply volts, e.g. 0:12: locked-rotor, a step capture instead of plateaus; step, its levels");
-  c->add_option("--before", a->before_s, "Time logged before the step [s] (default 1e-3)")->check(CLI::PositiveNumber);
+  c->add_option("--before", a->before_s, "Time logged before the step [s] (default 1e-3)")->check(PositiveNumber());
   c->add_option("--after", a->after_s, "Time logged after the step [s] (1e-2 locked-rotor; step: until settled)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--settle", a->settle_s,
                 "Step from FROM != 0: unlogged run at FROM before the log starts [s] (default: until settled)")
-      ->check(CLI::PositiveNumber);
-  c->add_option("--supply", a->supply_V, "Spin-down: supply voltage [V] of the run");
+      ->check(PositiveNumber());
+  c->add_option("--supply", a->supply_V, "Spin-down: supply voltage [V] of the run")->check(FiniteNumber());
   c->add_option("--run", a->run_s,
                 "Spin-down: time at the supply before it is disconnected [s] (default: until settled)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--coast", a->coast_s, "Spin-down: time logged after the disconnection [s] (default: to rest)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--brake-resistance", a->brake_resistance_ohm,
                 "Spin-down: coast through this resistance [ohm] across the terminals instead of open circuit")
-      ->check(CLI::NonNegativeNumber);
+      ->check(NonNegativeNumber());
   c->add_flag("--no-coast-voltage", a->no_coast_voltage, "Spin-down: no voltage column");
   c->add_flag("--no-coast-current", a->no_coast_current, "Spin-down: no current column");
   c->add_option("--sample-period", a->sample_period_s,
                 "Logger sample period [s] (1e-3 plateaus, no-load, spin-down; 1e-5 locked-rotor step; "
                 "step: 2e-5, or L/(R+R_s)/10 if shorter)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   // The bench.
   c->add_option("--supply-resistance", a->bench.supply_resistance_ohm, "Supply internal resistance [ohm]")
-      ->check(CLI::NonNegativeNumber);
+      ->check(NonNegativeNumber());
   c->add_option("--voltage-noise", a->bench.voltage_noise_sigma_V, "Voltage noise sigma [V]")
-      ->check(CLI::NonNegativeNumber);
+      ->check(NonNegativeNumber());
   c->add_option("--current-noise", a->bench.current_noise_sigma_A, "Current noise sigma [A]")
-      ->check(CLI::NonNegativeNumber);
+      ->check(NonNegativeNumber());
   c->add_option("--speed-noise", a->speed_noise_sigma_rad_s, "Speed noise sigma [rad/s] at the logged shaft")
-      ->check(CLI::NonNegativeNumber);
-  c->add_option("--torque-noise", a->torque_noise_sigma_N_m, "Torque noise sigma [N*m]")->check(CLI::NonNegativeNumber);
-  c->add_option("--voltage-lsb", a->bench.voltage_lsb_V, "Voltage ADC step [V]")->check(CLI::NonNegativeNumber);
-  c->add_option("--current-lsb", a->bench.current_lsb_A, "Current ADC step [A]")->check(CLI::NonNegativeNumber);
-  c->add_option("--temperature", a->bench.winding_temperature_degC, "Winding temperature at the start [degC]");
+      ->check(NonNegativeNumber());
+  c->add_option("--torque-noise", a->torque_noise_sigma_N_m, "Torque noise sigma [N*m]")->check(NonNegativeNumber());
+  c->add_option("--voltage-lsb", a->bench.voltage_lsb_V, "Voltage ADC step [V]")->check(NonNegativeNumber());
+  c->add_option("--current-lsb", a->bench.current_lsb_A, "Current ADC step [A]")->check(NonNegativeNumber());
+  c->add_option("--temperature", a->bench.winding_temperature_degC, "Winding temperature at the start [degC]")
+      ->check(WindingTemperature());
   c->add_option("--resistance-temperature", a->bench.resistance_reference_temperature_degC,
-                "Temperature [degC] at which --resistance is given");
-  c->add_option("--heating-per-plateau", a->bench.heating_per_plateau_K, "Winding temperature rise per level [K]");
+                "Temperature [degC] at which --resistance is given")
+      ->check(WindingTemperature());
+  c->add_option("--heating-per-plateau", a->bench.heating_per_plateau_K, "Winding temperature rise per level [K]")
+      ->check(FiniteNumber());
   c->add_flag("--log-temperature", a->log_temperature, "Add a temperature [degC] column");
   c->add_flag("--log-torque", a->log_torque, "Locked-rotor plateaus: add a load-cell torque column, tau = Kt*i");
   c->add_option("--cpr", a->counts_per_rev,
                 "An encoder of this many counts per revolution: log position [counts] instead of speed")
-      ->check(CLI::Range(1, std::numeric_limits<int>::max()));
+      ->check(WholeNumberFromTo(1, std::numeric_limits<int>::max()));
   c->add_option("--encoder-start-phase", a->encoder_start_phase,
                 "Where the shaft rests within a count when the log starts, as a fraction of a count "
                 "(default 0: exactly on an edge; a real shaft rests anywhere)")
@@ -386,7 +425,7 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
   c->add_flag("--log-speed-and-position", a->log_speed_and_position, "Log both speed and position");
   c->add_option("--gear-ratio", a->gear_ratio,
                 "Motor turns per output turn: speed and position read at the gearbox output")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--seed", a->bench.seed, "Noise seed (same seed, same file)");
   DeclareArtefactOptions(c, &a->artefacts);
   // The file.
@@ -402,6 +441,7 @@ void DeclareSimulateOptions(CLI::App* c, SimulateArguments* a) {
 }
 
 int RunSimulate(const SimulateArguments& a) {
+  RequireOutputPath("--out", a.out_path);
   const Kind kind = KindOf(a.kind);
   RejectInapplicable(a, kind);
   RejectInapplicableArtefacts(a.artefacts, ScopeOf(a, kind));

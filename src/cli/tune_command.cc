@@ -3,6 +3,8 @@
 #include <ostream>
 
 #include "src/cli/exit_codes.h"
+#include "src/cli/number_checks.h"
+#include "src/cli/output_path.h"
 #include "src/ingest/input_error.h"
 #include "src/output/atomic_file.h"
 #include "src/output/tuning_report.h"
@@ -17,18 +19,21 @@ void DeclareTuneOptions(CLI::App* c, TuneArguments* a) {
   c->add_option("result", a->result_path, "Result file of a fit (coilspin.result/2 or /1)")->required();
   c->add_option("--current-bandwidth", a->current_bandwidth_hz,
                 "Current-loop bandwidth [Hz] (default 5/(2*pi*tau_e), tau_e = L/R)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--speed-bandwidth", a->speed_bandwidth_hz, "Speed-loop bandwidth [Hz] (default: current-loop / 10)")
-      ->check(CLI::PositiveNumber);
+      ->check(PositiveNumber());
   c->add_option("--loop-delay", a->loop_delay_s,
                 "Delay [s] from measuring to the applied voltage in the drive (sampling, computation, PWM), "
                 "e.g. 75e-6; it enters both phase margins as e^(-s*T) (default 0)")
       ->check(CLI::NonNegativeNumber);
-  c->add_option("--json", a->json_path, "Write the tuning (coilspin.tuning/1) here, atomically");
+  c->add_option("--json", a->json_path,
+                "Write the tuning (coilspin.tuning/1) here, atomically; - writes it to standard output instead of "
+                "the text");
   c->add_flag("--quiet", a->quiet, "Print nothing on success");
 }
 
 int RunTune(const TuneArguments& a, std::ostream& out, std::ostream& err) {
+  if (a.json_path) RequireOutputPath("--json", *a.json_path);  // before any work (output_path.h)
   const result::ResultFile file = result::ReadResultFile(a.result_path);
   const MotorEstimate& e = file.estimate;
   const result::ModelParameters p = result::ModelParametersOf(e);
@@ -49,8 +54,9 @@ int RunTune(const TuneArguments& a, std::ostream& out, std::ostream& err) {
   const output::ExportSource source{a.result_path,
                                     file.format_version == 1 ? result::kResultFormat1 : result::kResultFormat2,
                                     e.motor_label, e.confidence};
-  if (!a.json_path.empty()) output::WriteFileAtomically(a.json_path, output::TuningJson(t, p.taken_as_zero, source));
-  if (!a.quiet) out << output::TuningText(t, p.taken_as_zero, source);
+  const bool json_on_stdout = a.json_path && output::IsStandardOutput(*a.json_path);
+  if (a.json_path) output::WriteFileAtomically(*a.json_path, output::TuningJson(t, p.taken_as_zero, source));
+  if (!a.quiet && !json_on_stdout) out << output::TuningText(t, p.taken_as_zero, source);
   return kSuccess;
 }
 

@@ -18,7 +18,7 @@ struct TuneArguments {
   std::optional<double> current_bandwidth_hz;
   std::optional<double> speed_bandwidth_hz;
   double loop_delay_s = 0.0;
-  std::string json_path;
+  std::optional<std::string> json_path;  // --json; "-": standard output, instead of the text
   bool quiet = false;
 };
 

@@ -14,6 +14,7 @@
 
 #include <CLI/CLI.hpp>
 #include <iosfwd>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -22,8 +23,8 @@ namespace coilspin::cli {
 struct VerifyArguments {
   std::string datasheet_path;
   std::vector<std::string> result_paths;
-  std::string json_path;
-  std::string csv_path;
+  std::optional<std::string> json_path;  // --json; "-": standard output, instead of the table
+  std::optional<std::string> csv_path;   // --csv; "-" likewise
   bool quiet = false;
 };
 

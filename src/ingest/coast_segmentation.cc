@@ -216,6 +216,7 @@ std::optional<SpeedView> AnalyseSpeed(const std::vector<double>& time_s, const s
   std::vector<double> top;
   for (double value : u)
     if (value >= peak - allowance) top.push_back(value);
+  if (top.empty() || !std::isfinite(allowance)) return refuse({NoCoastRule::kNotFinite, n, 0, allowance, 0.0});
   const double coarse_level = Median(std::move(top));
   std::size_t coarse = n;
   while (coarse > 0 && u[coarse - 1] < coarse_level - allowance) --coarse;
@@ -425,6 +426,9 @@ std::string NoCoastText(const NoCoast& why) {
     case NoCoastRule::kCoastTooShort:
       return "no coast: " + count + " samples from power off to rest, fewer than the " + needed +
              " a fit needs";
+    case NoCoastRule::kNotFinite:
+      return "no coast: the speed's noise band (" + Format("%.4g", why.value) +
+             " rad/s) is beyond the range of a double";
   }
   return "no coast";
 }

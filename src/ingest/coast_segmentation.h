@@ -88,6 +88,7 @@ enum class NoCoastRule {
   kNoRunNoSlowing,   // no run level, and the first samples do not fall by more than the band
                      // (value: their fall, limit: the band)
   kCoastTooShort,    // power off to rest: count < needed
+  kNotFinite,        // the speeds' spread or noise is beyond the range of a double (value: the allowance)
 };
 
 struct NoCoast {

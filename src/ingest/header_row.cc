@@ -5,6 +5,7 @@
 #include "src/ingest/csv_cells.h"
 #include "src/ingest/error_text.h"
 #include "src/ingest/input_error.h"
+#include "src/ingest/text_encoding.h"
 
 namespace coilspin::ingest {
 namespace {
@@ -164,13 +165,24 @@ ColumnPlan PlanColumn(const HeaderCell& cell, Quantity quantity, const ReadOptio
                          std::string(units::InternalUnit(quantity)) + "]' or pass --unit " + quantity_name +
                          "=UNIT (accepted: " + AcceptedUnitList(quantity) + ")");
   }
-  const std::string& spelling = unit_from_option ? unit_option->second : cell.unit;
-  const std::optional<units::Conversion> conversion = units::LookUpUnit(quantity, spelling);
+  std::string spelling = unit_from_option ? unit_option->second : cell.unit;
+  std::optional<units::Conversion> conversion = units::LookUpUnit(quantity, spelling);
+  const std::optional<std::string> non_utf8_byte = FirstNonUtf8Byte(spelling);
+  if (!conversion && non_utf8_byte) {  // a Windows-1252 / Latin-1 header: "\xB0C" is "°C" (text_encoding.h)
+    const std::string latin1 = Latin1ToUtf8(spelling);
+    conversion = units::LookUpUnit(quantity, latin1);
+    if (conversion) spelling = latin1;
+  }
   if (!conversion) {
     const std::string where = unit_from_option ? "given by --unit " + quantity_name + "=" + spelling
                                                : "in " + DescribeColumn(cell.column, cell.text);
+    const std::string encoding =
+        non_utf8_byte ? "; it holds byte " + *non_utf8_byte +
+                            ", which is not UTF-8 (nor, read as Windows-1252/Latin-1, a known unit): save the file "
+                            "as UTF-8"
+                      : "";
     throw InputError(InputErrorKind::kUnknownUnit, path, header_line, cell.column,
-                     "unknown unit " + Quote(spelling) + " for " + quantity_name + " " + where +
+                     "unknown unit " + Quote(spelling) + " for " + quantity_name + " " + where + encoding +
                          "; accepted: " + AcceptedUnitList(quantity));
   }
   ColumnPlan plan;

@@ -6,7 +6,7 @@
 namespace coilspin {
 namespace {
 
-constexpr std::array<std::pair<InputErrorKind, std::string_view>, 19> kKindNames = {{
+constexpr std::array<std::pair<InputErrorKind, std::string_view>, 22> kKindNames = {{
     {InputErrorKind::kCannotOpen, "cannot-open"},
     {InputErrorKind::kEmptyFile, "empty-file"},
     {InputErrorKind::kBinaryFile, "binary-file"},
@@ -24,6 +24,9 @@ constexpr std::array<std::pair<InputErrorKind, std::string_view>, 19> kKindNames
     {InputErrorKind::kBadOption, "bad-option"},
     {InputErrorKind::kBadSession, "bad-session"},
     {InputErrorKind::kDuplicateColumn, "duplicate-column"},
+    {InputErrorKind::kBadOutputPath, "bad-output-path"},
+    {InputErrorKind::kTooLarge, "too-large"},
+    {InputErrorKind::kOutOfRange, "out-of-range"},
     {InputErrorKind::kBadResultFile, "bad-result-file"},
     {InputErrorKind::kBadDatasheet, "bad-datasheet"},
 }};

@@ -28,6 +28,9 @@ enum class InputErrorKind {
   kBadOption,
   kBadSession,
   kDuplicateColumn,  // two header cells name the same quantity
+  kBadOutputPath,    // an output file that cannot be written there (checked before the work)
+  kTooLarge,         // a request or a log beyond what the machine or a stated cap allows
+  kOutOfRange,       // a value outside what physics allows (a temperature below copper's −234.5 °C)
   kBadResultFile,    // a result file that is not JSON, not a coilspin result, or lacks a key
   kBadDatasheet,     // a datasheet file (TOML) that names an unknown key, a wrong unit, no nominal, ...
 };

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <utility>
 
 #include "src/ingest/csv_cells.h"
@@ -11,7 +12,9 @@
 #include "src/ingest/line_reader.h"
 #include "src/ingest/number_cell.h"
 #include "src/ingest/read_options.h"
+#include "src/ingest/small_text_and_statistics.h"
 #include "src/ingest/text_file.h"
+#include "src/units/constants.h"
 
 namespace coilspin {
 namespace {
@@ -69,7 +72,11 @@ class RowReader {
     for (const ingest::ColumnPlan& plan : plans) {
       const int slot = static_cast<int>(slots_.size());
       slot_of_column_[static_cast<std::size_t>(plan.source.column - 1)] = slot;
-      slots_.push_back({&log_.Channel(plan.source.quantity), plan.scale, plan.offset, plan.source});
+      // Temperature must lie above copper's −k (src/model/copper_resistance.h): below it R(θ) has no meaning.
+      const double lowest = plan.source.quantity == units::Quantity::kTemperature
+                                ? -units::kCopperTemperatureConstant_degC
+                                : -std::numeric_limits<double>::infinity();
+      slots_.push_back({&log_.Channel(plan.source.quantity), plan.scale, plan.offset, lowest, plan.source});
       if (plan.source.quantity == units::Quantity::kTime) time_slot_ = slot;
     }
     values_.assign(slots_.size(), 0.0);
@@ -98,9 +105,15 @@ class RowReader {
     if (column != header_cells_) ThrowCellCount(column, line_number);
     const double time = values_[static_cast<std::size_t>(time_slot_)];
     if (!log_.line_of_row.empty() && !(time > previous_time_)) ThrowTimeNotIncreasing(line_number);
+    const Slot& time_slot = slots_[static_cast<std::size_t>(time_slot_)];
+    const double time_step_s = (time - previous_time_) * time_slot.scale;
+    if (!log_.line_of_row.empty() && !(time_step_s >= units::kShortestSampleInterval_s))
+      ThrowTimeStepTooShort(time_step_s, line_number);
     for (std::size_t i = 0; i < slots_.size(); ++i) {
       const double value_si = values_[i] * slots_[i].scale + slots_[i].offset;
-      if (!std::isfinite(value_si)) ThrowOverflow(slots_[i].source, line_number);
+      if (!std::isfinite(value_si)) ThrowTooLarge(slots_[i], values_[i], line_number);
+      if (!(value_si > slots_[i].lowest_si)) ThrowBelowCopperLimit(slots_[i], values_[i], value_si, line_number);
+      if (!(std::abs(value_si) <= units::kLargestLoggedMagnitude)) ThrowTooLarge(slots_[i], values_[i], line_number);
       slots_[i].channel->push_back(value_si);
     }
     log_.line_of_row.push_back(line_number);
@@ -115,6 +128,7 @@ class RowReader {
     std::vector<double>* channel;
     double scale;
     double offset;
+    double lowest_si;  // a value must lie above this (−∞ but for temperature)
     ColumnSource source;
   };
 
@@ -153,11 +167,44 @@ class RowReader {
                          " " + unit + ")");
   }
 
-  [[noreturn]] void ThrowOverflow(const ColumnSource& source, long line_number) const {
-    throw InputError(InputErrorKind::kNotFinite, log_.path, line_number, source.column,
-                     "value in " + ingest::DescribeColumn(source.column, source.header) +
-                         " is beyond the range of a double once converted to " +
-                         std::string(units::InternalUnit(source.quantity)));
+  [[noreturn]] void ThrowTimeStepTooShort(double step_s, long line_number) const {
+    const std::string& unit = slots_[static_cast<std::size_t>(time_slot_)].source.unit;
+    throw InputError(InputErrorKind::kOutOfRange, log_.path, line_number,
+                     slots_[static_cast<std::size_t>(time_slot_)].source.column,
+                     "time step of " + ingest::FormatNumber(step_s) + " s (" + time_text_ + " " + unit + " after " +
+                         previous_time_text_ + " " + unit + ") is shorter than any logger samples (" +
+                         ingest::FormatNumber(units::kShortestSampleInterval_s) +
+                         " s); is the time column in the unit its header says?");
+  }
+
+  [[noreturn]] void ThrowTooLarge(const Slot& slot, double value, long line_number) const {
+    const ColumnSource& source = slot.source;
+    const std::string internal(units::InternalUnit(source.quantity));
+    const double value_si = value * slot.scale + slot.offset;
+    if (!std::isfinite(value_si)) {
+      throw InputError(InputErrorKind::kNotFinite, log_.path, line_number, source.column,
+                       "value in " + ingest::DescribeColumn(source.column, source.header) +
+                           " is beyond the range of a double once converted to " + internal);
+    }
+    const std::string in_si =
+        value_si == value ? "" : " (" + Format("%g", value_si) + " " + internal + ")";
+    throw InputError(InputErrorKind::kOutOfRange, log_.path, line_number, source.column,
+                     "value " + ingest::FormatNumber(value) + " " + source.unit + in_si + " in " +
+                         ingest::DescribeColumn(source.column, source.header) +
+                         " is larger than any reading (the limit is " +
+                         ingest::FormatNumber(units::kLargestLoggedMagnitude) +
+                         " in SI units); a logger's error code or a wrong unit?");
+  }
+
+  [[noreturn]] void ThrowBelowCopperLimit(const Slot& slot, double value, double value_si, long line_number) const {
+    const ColumnSource& source = slot.source;
+    throw InputError(InputErrorKind::kOutOfRange, log_.path, line_number, source.column,
+                     "temperature " + ingest::FormatNumber(value) + " " + source.unit +
+                         (value_si == value ? "" : " (" + Format("%g", value_si) + " degC)") + " in " +
+                         ingest::DescribeColumn(source.column, source.header) + " is at or below " +
+                         ingest::FormatNumber(slot.lowest_si) +
+                         " degC where copper's resistance would reach zero: no winding is that cold (a sensor's "
+                         "fault code, or degC values under a [K] header?)");
   }
 
   BenchLog& log_;

@@ -208,9 +208,11 @@ std::optional<std::size_t> FindStepOnset(const std::vector<double>& signal) {
     amplitude = std::max(amplitude, std::min(excursion(k), excursion(k + 1)));
   const double sigma = EstimateChannelNoise(signal).sigma;
   if (amplitude == 0.0 || amplitude <= kStepMinimumSigmas * sigma) return std::nullopt;
+  if (!std::isfinite(amplitude) || !std::isfinite(sigma)) return std::nullopt;  // beyond the range of a double
 
   std::size_t k = 0;
-  while (!(excursion(k) > 0.5 * amplitude && excursion(k + 1) > 0.5 * amplitude)) ++k;
+  while (k + 1 < n && !(excursion(k) > 0.5 * amplitude && excursion(k + 1) > 0.5 * amplitude)) ++k;
+  if (k + 1 >= n) return std::nullopt;
   const double band = kInitialLevelSigmas * sigma;
   while (k > 0 && excursion(k) > band) --k;
   return k;

@@ -5,7 +5,8 @@
 // a NUL byte or another control byte (below 0x20 other than tab, line feed and
 // carriage return, or 0x7F) makes it binary. The block is then handed to the
 // line reader with the rest of the file, so the file is opened and read once
-// (pipes work too).
+// (pipes work too). Line ends reach the reader as LF, whether the file wrote
+// LF, CR LF or a lone CR (classic Mac OS); each counts as one line.
 
 #include <cstddef>
 #include <memory>

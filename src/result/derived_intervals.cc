@@ -81,6 +81,8 @@ std::optional<QuantityEstimate> DeriveWithInterval(const model::DerivedFormula& 
   const double t = core::StudentTQuantile(0.5 * (1.0 + e.confidence), p.degrees_of_freedom);
   q.ci_low = q.value - t * q.std_error;
   q.ci_high = q.value + t * q.std_error;
+  // A value or interval the numbers cannot give (an overflow, no degrees of freedom) is no result.
+  if (!(std::isfinite(q.value) && std::isfinite(q.ci_low) && std::isfinite(q.ci_high))) return std::nullopt;
   q.tests = tests;
   if (formula.at_voltage) q.at_voltage_V = voltage_V;
   q.note = model::DerivedNote(formula.key);

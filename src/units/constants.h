@@ -60,6 +60,20 @@ inline constexpr double kStarLineOverPhaseVoltage = 1.73205080756887729353;
 // constants are usually quoted to within a few per cent; the user may override it).
 inline constexpr double kDefaultKtKeTolerance = 0.05;
 
+// ---- Logged values -----------------------------------------------------------
+
+// The largest magnitude a logged value may have once in SI: 1e100. No bench
+// reading comes near it (the largest in use are speeds of ~1e4 rad/s and times of
+// ~1e6 s); below it a reading's square, the product of two readings and sums of
+// them over 10^10 rows stay finite (1e200·1e10 < 1.8e308, the largest double,
+// IEEE 754), so no fit's sum of squares can overflow on a value the reader let in.
+inline constexpr double kLargestLoggedMagnitude = 1e100;
+// The shortest time between two logged rows: 1e-12 s, a sample rate of 1 THz.
+// The fastest digitisers sample at some 1e11 per second (common practice), so
+// a shorter step is a wrong time unit or a corrupt time column, and dividing by
+// it (a derivative, a rate) would leave the range where a fit is meaningful.
+inline constexpr double kShortestSampleInterval_s = 1e-12;
+
 // The supply voltages small DC motors are rated at, for recognising a datasheet
 // figure printed for another voltage than the sheet's rated one (common
 // practice: battery multiples of 1.2 V and 1.5 V cells, and the usual bus voltages).

@@ -56,13 +56,18 @@ inline void ExpectValidResultFile(const std::filesystem::path& path) {
   }
 }
 
-inline RunResult RunCoilspin(const std::string& arguments, const std::filesystem::path& folder) {
+// Runs coilspin in `folder`; `address_space_kib` > 0 limits its address space (ulimit -v).
+// status is -1 when coilspin did not exit (a signal).
+inline RunResult RunCoilspin(const std::string& arguments, const std::filesystem::path& folder,
+                             long address_space_kib = 0) {
   const auto out = folder / "stdout.txt";
   const auto err = folder / "stderr.txt";
-  const std::string command = "cd '" + folder.string() + "' && '" + std::string(COILSPIN_BINARY) + "' " + arguments +
-                              " >'" + out.string() + "' 2>'" + err.string() + "' </dev/null";
+  const std::string limit = address_space_kib > 0 ? "ulimit -v " + std::to_string(address_space_kib) + " && " : "";
+  const std::string command = "cd '" + folder.string() + "' && " + limit + "exec '" + std::string(COILSPIN_BINARY) +
+                              "' " + arguments + " >'" + out.string() + "' 2>'" + err.string() + "' </dev/null";
   const int raw = std::system(command.c_str());
   RunResult r;
+  // exec: the shell becomes coilspin, so a signal that ends coilspin ends the shell and shows here.
   r.status = WIFEXITED(raw) ? WEXITSTATUS(raw) : -1;
   r.out = Slurp(out);
   r.err = Slurp(err);

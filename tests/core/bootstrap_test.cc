@@ -15,7 +15,6 @@
 #include "core/ar1_line.h"
 #include "fitters/core/block_resampling.h"
 #include "fitters/core/bootstrap.h"
-#include "fitters/core/bootstrap_progress.h"
 #include "fitters/core/least_squares.h"
 
 namespace coilspin::core {
@@ -226,7 +225,8 @@ TEST(Bootstrap, DerivedQuantityAndProgress) {
   BootstrapOptions options;
   options.replicates = 50;
   int calls = 0, last_done = -1, last_total = -1;
-  options.progress = [&](int done, int total, double) {
+  options.progress = [&](ProgressStage stage, int done, int total) {
+    EXPECT_EQ(stage, ProgressStage::kBootstrapReplicates);
     EXPECT_GE(done, last_done);
     ++calls;
     last_done = done;
@@ -244,19 +244,6 @@ TEST(Bootstrap, DerivedQuantityAndProgress) {
   EXPECT_NEAR(doubled.ci_low, 2.0 * result.Get("slope").ci_low, 1e-15);
   EXPECT_NEAR(doubled.ci_high, 2.0 * result.Get("slope").ci_high, 1e-15);
   EXPECT_NEAR(doubled.std_error, 2.0 * result.Get("slope").std_error, 1e-15);
-}
-
-TEST(BootstrapProgress, SilentForShortRunsThenOneLineEndedByANewline) {
-  // The behaviour promised in bootstrap_progress.h (common practice for terminal progress).
-  const auto progress = StderrBootstrapProgress();
-  testing::internal::CaptureStderr();
-  progress(10, 200, 0.5);
-  EXPECT_EQ(testing::internal::GetCapturedStderr(), "");
-  testing::internal::CaptureStderr();
-  progress(120, 200, 1.5);
-  progress(200, 200, 2.0);
-  EXPECT_EQ(testing::internal::GetCapturedStderr(),
-            "\rbootstrap: 120/200 replicates\rbootstrap: 200/200 replicates\n");
 }
 
 TEST(BootstrapOptions, BadValuesAreRejected) {

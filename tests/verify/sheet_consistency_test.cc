@@ -88,7 +88,8 @@ TEST(SheetConsistency, ASheetBuiltFromOneMotorIsConsistent) {
 
 TEST(SheetConsistency, RangeOverTheToleranceBoxIsTheCornersOfAMonotonicRelation) {
   // physics: Kt·V/R is largest at the highest Kt and lowest R: 0.0285·1.05·12/(2.3·0.92)
-  const RelationCheck* c = Relation(Checked(Sheet{}), "stall_torque");
+  const std::vector<RelationCheck> checks = Checked(Sheet{});  // kept: c points into it
+  const RelationCheck* c = Relation(checks, "stall_torque");
   ASSERT_NE(c, nullptr);
   EXPECT_NEAR(c->predicted_high, kK * 1.05 * kV / (kR * 0.92), 1e-12);
   EXPECT_NEAR(c->predicted_low, kK * 0.95 * kV / (kR * 1.08), 1e-12);
@@ -155,7 +156,8 @@ TEST(SheetConsistency, ANoLoadSpeedPrintedForAnotherVoltageIsNamed) {
 TEST(SheetConsistency, WithinTheTolerancesAConventionIsIndistinguishableFromANearbyError) {
   Sheet s;
   s.ke_written_si = 1.3 * kK;  // 30 % off, 6 % from √(3/2): the ± 5 % lines cannot tell them apart
-  const RelationCheck* c = Relation(Checked(s), "torque_constant");
+  const std::vector<RelationCheck> checks = Checked(s);  // kept: c points into it
+  const RelationCheck* c = Relation(checks, "torque_constant");
   ASSERT_NE(c, nullptr);
   EXPECT_FALSE(c->consistent);
   ASSERT_FALSE(c->explained_by.empty());
